@@ -1,0 +1,111 @@
+import fs from 'node:fs'
+import path from 'node:path'
+import { fileURLToPath } from 'node:url'
+import connectPgSimple from 'connect-pg-simple'
+import express from 'express'
+import session from 'express-session'
+import helmet from 'helmet'
+import { env } from '@server/config/env'
+import { pool } from '@server/db/sequelize'
+import { csrfProtection } from '@server/middlewares/csrf'
+import { errorHandler, notFound } from '@server/middlewares/error-handler'
+import { authRoutes } from '@server/modules/auth/auth.routes'
+import { createPassport } from '@server/modules/auth/passport'
+import { healthRoutes } from '@server/modules/health/health.routes'
+import { settingsRoutes } from '@server/modules/settings/settings.routes'
+import { shopsRoutes } from '@server/modules/shops/shops.routes'
+import { usersRoutes } from '@server/modules/users/users.routes'
+import '@server/db/associations'
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..')
+export const CLIENT_DIR = path.join(root, 'dist', 'client')
+
+export type AppOptions = {
+  /** Serve the built client from dist/client (the started product); tests of the API leave it off. */
+  serveClient?: boolean
+  /** Delete expired sessions every 15 minutes; off in tests so no timer outlives them. */
+  pruneSessions?: boolean
+}
+
+/** Builds the Express app without listening (tests import it). */
+export function createApp(opts: AppOptions = {}) {
+  const app = express()
+  app.disable('x-powered-by')
+  app.set('trust proxy', env.TRUST_PROXY ? 1 : false)
+  app.set('query parser', 'extended')
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          baseUri: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+          objectSrc: ["'none'"],
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  )
+
+  const PgStore = connectPgSimple(session)
+  const passport = createPassport()
+  const api = express.Router()
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', 'no-store')
+    next()
+  })
+  api.use(express.json({ limit: '256kb' }))
+  api.use(
+    session({
+      name: 'lc.sid',
+      secret: env.SESSION_SECRET,
+      store: new PgStore({
+        pool,
+        tableName: 'sessions',
+        createTableIfMissing: false,
+        pruneSessionInterval: opts.pruneSessions === false ? false : 15 * 60,
+      }),
+      resave: false,
+      saveUninitialized: false,
+      rolling: false,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 7 * 24 * 60 * 60 * 1000, path: '/' },
+    }),
+  )
+  api.use(passport.initialize())
+  api.use(passport.session())
+  api.use(csrfProtection(['/webhooks/']))
+
+  api.use('/health', healthRoutes())
+  api.use('/auth', authRoutes(passport))
+  api.use('/users', usersRoutes())
+  api.use('/shops', shopsRoutes())
+  api.use('/settings', settingsRoutes())
+  api.use(notFound)
+  app.use('/api', api)
+
+  if (opts.serveClient && fs.existsSync(path.join(CLIENT_DIR, 'index.html'))) {
+    app.use(
+      express.static(CLIENT_DIR, {
+        index: false,
+        setHeaders: (res, file) => {
+          if (file.includes(`${path.sep}assets${path.sep}`)) res.set('Cache-Control', 'public, max-age=31536000, immutable')
+        },
+      }),
+    )
+    const indexHtml = fs.readFileSync(path.join(CLIENT_DIR, 'index.html'), 'utf8')
+    app.get(/^(?!\/api\/).*/, (_req, res) => {
+      res.set('Cache-Control', 'no-cache').type('html').send(indexHtml)
+    })
+  }
+
+  app.use(errorHandler)
+  return app
+}

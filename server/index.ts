@@ -1,0 +1,35 @@
+import { createServer } from 'node:http'
+import { env } from '@server/config/env'
+import { closeDb, sequelize } from '@server/db/sequelize'
+import { migrate } from '@server/db/migrator'
+import { createApp } from '@server/app'
+import { logger } from '@server/lib/logger'
+
+/** Runs the API and the built client on one port. Migrations run first; demo data is the start script's job. */
+async function main() {
+  await sequelize.authenticate()
+  await migrate(sequelize)
+  const app = createApp({ serveClient: true })
+  const server = createServer(app)
+  server.keepAliveTimeout = 65_000
+  await new Promise<void>((resolve) => server.listen(env.PORT, env.HOST, resolve))
+  logger.info('listening', { url: env.APP_URL })
+  if (process.send) process.send({ type: 'listening', port: env.PORT })
+
+  let stopping = false
+  const stop = (signal: string) => {
+    if (stopping) return
+    stopping = true
+    logger.info('stopping', { signal })
+    server.close(() => void closeDb().then(() => process.exit(0)))
+    server.closeAllConnections()
+    setTimeout(() => process.exit(0), 5000).unref()
+  }
+  process.on('SIGINT', () => stop('SIGINT'))
+  process.on('SIGTERM', () => stop('SIGTERM'))
+}
+
+main().catch((err) => {
+  console.error(err instanceof Error ? err.message : err)
+  process.exit(1)
+})

@@ -1,0 +1,35 @@
+import nodemailer from 'nodemailer'
+import type { Attachment } from 'nodemailer/lib/mailer'
+import type { Email } from '@templates/email/layout'
+import { env } from '@server/config/env'
+import { logger } from '@server/lib/logger'
+
+const transport = nodemailer.createTransport({
+  host: env.SMTP_HOST,
+  port: env.SMTP_PORT,
+  secure: env.SMTP_SECURE,
+  // The local mail catcher speaks plain SMTP; a real relay is configured with SMTP_SECURE and credentials.
+  ignoreTLS: !env.SMTP_SECURE && !env.SMTP_USER,
+  auth: env.SMTP_USER ? { user: env.SMTP_USER, pass: env.SMTP_PASS ?? '' } : undefined,
+})
+
+export type OutgoingMail = Email & { to: string | string[]; attachments?: Attachment[]; replyTo?: string }
+
+/** Sends one e-mail; failures are logged and reported to the caller as false, never thrown. */
+export async function sendMail(mail: OutgoingMail): Promise<boolean> {
+  try {
+    await transport.sendMail({
+      from: env.MAIL_FROM,
+      to: mail.to,
+      replyTo: mail.replyTo,
+      subject: mail.subject,
+      text: mail.text,
+      html: mail.html,
+      attachments: mail.attachments,
+    })
+    return true
+  } catch (err) {
+    logger.warn('mail not sent', { to: mail.to, subject: mail.subject, error: (err as Error).message })
+    return false
+  }
+}

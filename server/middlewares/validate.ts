@@ -1,0 +1,58 @@
+import type { RequestHandler } from 'express'
+import type { z } from 'zod'
+import { issuesToDetails } from '@shared/schemas/errors'
+import { AppError } from '@server/lib/app-error'
+
+type Schemas = { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType }
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    /** Parsed and validated values from `validate()`; controllers read these, never the raw ones. */
+    valid: { body?: unknown; query?: unknown; params?: unknown }
+  }
+}
+
+/**
+ * Checks body, query and params against their schemas, reports every problem at once
+ * (400 invalid_input with one detail per field), and hands the parsed values on in `req.valid`.
+ */
+export function validate(schemas: Schemas): RequestHandler {
+  return (req, _res, next) => {
+    const details: { field: string; message: string }[] = []
+    const valid: Request['valid'] = {}
+    for (const part of ['params', 'query', 'body'] as const) {
+      const schema = schemas[part]
+      if (!schema) continue
+      const raw = part === 'body' ? (req.body ?? {}) : req[part]
+      const r = schema.safeParse(raw)
+      if (r.success) valid[part] = r.data
+      else
+        details.push(
+          ...issuesToDetails(r.error.issues).map((d) => ({
+            field: part === 'body' ? d.field : `${part}.${d.field}`,
+            message: d.message,
+          })),
+        )
+    }
+    if (details.length > 0) {
+      const first = details[0]!
+      next(AppError.invalid(details.length === 1 ? `${first.field}: ${first.message}` : 'Some fields need attention.', details))
+      return
+    }
+    req.valid = valid
+    next()
+  }
+}
+
+type Request = import('express').Request
+
+/** Typed access to what validate() parsed. */
+export function body<S extends z.ZodType>(req: Request, _schema: S): z.output<S> {
+  return req.valid.body as z.output<S>
+}
+export function query<S extends z.ZodType>(req: Request, _schema: S): z.output<S> {
+  return req.valid.query as z.output<S>
+}
+export function params<S extends z.ZodType>(req: Request, _schema: S): z.output<S> {
+  return req.valid.params as z.output<S>
+}
