@@ -12,16 +12,16 @@ const DEMO_CERTIFICATE = Buffer.from(
 
 export const up: Migration = async ({ context: { sequelize } }) => {
   const q = (sql: string, bind: unknown[] = []) => sequelize.query(sql, { bind })
-  await q(`INSERT INTO settings (key, value) VALUES ('studio', $1) ON CONFLICT (key) DO UPDATE SET value = EXCLUDED.value`, [
-    JSON.stringify(DEMO_STUDIO),
-  ])
+  await q(
+    `INSERT INTO settings (key, value) VALUES ('studio', $1) ON CONFLICT (key) DO UPDATE SET value = EXCLUDED.value`,
+    [JSON.stringify(DEMO_STUDIO)],
+  )
   const tierIds = new Map<string, number>()
   for (const t of DEMO_TIERS) {
-    const [rows] = await q('INSERT INTO price_tiers (name, target_margin_pct, sort_order) VALUES ($1, $2, $3) RETURNING id', [
-      t.name,
-      t.targetMarginPct,
-      t.sortOrder,
-    ])
+    const [rows] = await q(
+      'INSERT INTO price_tiers (name, target_margin_pct, sort_order) VALUES ($1, $2, $3) RETURNING id',
+      [t.name, t.targetMarginPct, t.sortOrder],
+    )
     tierIds.set(t.name, (rows as { id: number }[])[0]!.id)
   }
   for (const s of DEMO_STAFF) {
@@ -39,7 +39,12 @@ export const up: Migration = async ({ context: { sequelize } }) => {
       const [rows] = await q(
         `INSERT INTO uploads (purpose, filename, content_type, size_bytes, sha256, data)
          VALUES ('resale_certificate', $1, 'application/pdf', $2, $3, $4) RETURNING id`,
-        [`resale-certificate-${s.tradingName.toLowerCase().replace(/[^a-z0-9]+/g, '-')}.pdf`, DEMO_CERTIFICATE.length, createHash('sha256').update(DEMO_CERTIFICATE).digest('hex'), DEMO_CERTIFICATE],
+        [
+          `resale-certificate-${s.tradingName.toLowerCase().replace(/[^a-z0-9]+/g, '-')}.pdf`,
+          DEMO_CERTIFICATE.length,
+          createHash('sha256').update(DEMO_CERTIFICATE).digest('hex'),
+          DEMO_CERTIFICATE,
+        ],
       )
       certId = (rows as { id: number }[])[0]!.id
     }

@@ -12,7 +12,7 @@ import { errorHandler, notFound } from '@server/middlewares/error-handler'
 import { authRoutes } from '@server/modules/auth/auth.routes'
 import { createPassport } from '@server/modules/auth/passport'
 import { healthRoutes } from '@server/modules/health/health.routes'
-import { settingsRoutes } from '@server/modules/settings/settings.routes'
+import { settingsRoutes, studioRoutes } from '@server/modules/settings/settings.routes'
 import { shopsRoutes } from '@server/modules/shops/shops.routes'
 import { usersRoutes } from '@server/modules/users/users.routes'
 import '@server/db/associations'
@@ -88,6 +88,7 @@ export function createApp(opts: AppOptions = {}) {
   api.use('/users', usersRoutes())
   api.use('/shops', shopsRoutes())
   api.use('/settings', settingsRoutes())
+  api.use('/studio', studioRoutes())
   api.use(notFound)
   app.use('/api', api)
 

@@ -6,7 +6,6 @@
 import { randomBytes } from 'node:crypto'
 import fs from 'node:fs'
 import path from 'node:path'
-import { fileURLToPath } from 'node:url'
 import { Sequelize } from 'sequelize'
 import pg from 'pg'
 import { migrate, seedIfEmpty } from '../../server/db/migrator'
@@ -15,8 +14,10 @@ import type { MailCatcher } from './mail-catcher'
 import { isPortFree, freePort } from './ports'
 import { ensureDatabase, runningPort, startCluster } from './postgres'
 import type { Cluster } from './postgres'
+import { ROOT } from './root'
 
-export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..')
+export { ROOT }
+
 export const DATA_DIR = path.join(ROOT, '.data')
 
 type Secrets = { sessionSecret: string; pgSuperPassword: string; pgAppPassword: string }

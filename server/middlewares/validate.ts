@@ -1,4 +1,4 @@
-import type { RequestHandler } from 'express'
+import type { Request, RequestHandler } from 'express'
 import type { z } from 'zod'
 import { issuesToDetails } from '@shared/schemas/errors'
 import { AppError } from '@server/lib/app-error'
@@ -44,7 +44,6 @@ export function validate(schemas: Schemas): RequestHandler {
   }
 }
 
-type Request = import('express').Request
 
 /** Typed access to what validate() parsed. */
 export function body<S extends z.ZodType>(req: Request, _schema: S): z.output<S> {

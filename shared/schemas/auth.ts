@@ -42,3 +42,14 @@ export const SessionUserSchema = z.object({
   shopId: z.number().int().nullable(),
 })
 export type SessionUser = z.infer<typeof SessionUserSchema>
+
+export const ChangePasswordSchema = z.object({
+  currentPassword: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(200),
+  newPassword: NewPasswordSchema,
+})
+export type ChangePasswordInput = z.infer<typeof ChangePasswordSchema>
+
+export const ChangePasswordFormSchema = ChangePasswordSchema.extend({ confirm: z.string() }).refine(
+  (v) => v.newPassword === v.confirm,
+  { path: ['confirm'], message: 'The two passwords differ.' },
+)

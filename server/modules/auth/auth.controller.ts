@@ -1,9 +1,10 @@
 import type { NextFunction, Request, Response } from 'express'
 import type { createPassport } from '@server/modules/auth/passport'
-import { LoginSchema, PasswordResetRequestSchema, SetPasswordSchema } from '@shared/schemas/auth'
+import { ChangePasswordSchema, LoginSchema, PasswordResetRequestSchema, SetPasswordSchema } from '@shared/schemas/auth'
 import type { SessionUser } from '@shared/schemas/auth'
 import { AppError } from '@server/lib/app-error'
 import { csrfToken } from '@server/middlewares/csrf'
+import { currentUser } from '@server/middlewares/require-role'
 import { body } from '@server/middlewares/validate'
 import * as auth from '@server/modules/auth/auth.service'
 
@@ -24,7 +25,7 @@ export function login(passport: ReturnType<typeof createPassport>) {
       if (!user) return next(new AppError(401, 'invalid_credentials', 'That e-mail and password do not match an active account.'))
       // Passport gives the session a new id at sign-in (no fixation); keepSessionInfo carries the
       // CSRF token over, so the page's token stays valid.
-      req.login(user, { keepSessionInfo: true }, (e) => {
+      req.login(user, { session: true, keepSessionInfo: true }, (e) => {
         if (e) return next(e)
         res.json({ user, csrfToken: csrfToken(req) })
       })
@@ -57,5 +58,11 @@ export async function describeToken(req: Request, res: Response) {
 export async function setPassword(req: Request, res: Response) {
   const { token, password } = body(req, SetPasswordSchema)
   await auth.setPasswordWithToken(token, password)
+  res.status(204).end()
+}
+
+export async function changePassword(req: Request, res: Response) {
+  const { currentPassword, newPassword } = body(req, ChangePasswordSchema)
+  await auth.changePassword(currentUser(req).id, currentPassword, newPassword, req.sessionID)
   res.status(204).end()
 }

@@ -1,9 +1,10 @@
 import { Router } from 'express'
 import type { createPassport } from '@server/modules/auth/passport'
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit'
-import { LoginSchema, PasswordResetRequestSchema, SetPasswordSchema } from '@shared/schemas/auth'
+import { ChangePasswordSchema, LoginSchema, PasswordResetRequestSchema, SetPasswordSchema } from '@shared/schemas/auth'
 import { env } from '@server/config/env'
 import { AppError } from '@server/lib/app-error'
+import { requireAuth } from '@server/middlewares/require-role'
 import { validate } from '@server/middlewares/validate'
 import * as c from '@server/modules/auth/auth.controller'
 
@@ -46,5 +47,6 @@ export function authRoutes(passport: ReturnType<typeof createPassport>) {
   r.post('/password-reset', resetLimiter, validate({ body: PasswordResetRequestSchema }), c.requestReset)
   r.get('/tokens/:token', c.describeToken)
   r.post('/set-password', validate({ body: SetPasswordSchema }), c.setPassword)
+  r.put('/password', requireAuth, validate({ body: ChangePasswordSchema }), c.changePassword)
   return r
 }

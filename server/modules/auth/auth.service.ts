@@ -128,3 +128,20 @@ export async function sendInvitation(user: User, transaction?: Transaction) {
   })
   return { to: user.email, ...mail }
 }
+
+/** Changes one's own password; every other session of the person ends, this one stays. */
+export async function changePassword(userId: number, currentPassword: string, newPassword: string, keepSid: string) {
+  const user = await User.findByPk(userId)
+  if (!user?.passwordHash || !(await bcrypt.compare(currentPassword, user.passwordHash))) {
+    throw AppError.field('currentPassword', 'That is not your current password.')
+  }
+  const passwordHash = await hashPassword(newPassword)
+  await sequelize.transaction(async (t) => {
+    await user.update({ passwordHash }, { transaction: t })
+    await sequelize.query(`DELETE FROM sessions WHERE (sess->'passport'->>'user') = $1 AND sid <> $2`, {
+      bind: [String(userId), keepSid],
+      transaction: t,
+    })
+    await audit({ userId, action: 'password.changed', entity: 'user', entityId: userId }, t)
+  })
+}

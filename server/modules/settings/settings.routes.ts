@@ -1,10 +1,19 @@
 import { Router } from 'express'
 import type { Request, Response } from 'express'
 import { StudioProfileSchema } from '@shared/schemas/settings-form'
-import { currentUser, requireRight } from '@server/middlewares/require-role'
+import { currentUser, requireAuth, requireRight } from '@server/middlewares/require-role'
 import { body, validate } from '@server/middlewares/validate'
 import { audit } from '@server/modules/audit/audit.service'
 import { getSettings, updateSettings } from '@server/modules/settings/settings.service'
+
+/** The studio's public profile: every signed-in person sees whom they deal with. */
+export function studioRoutes() {
+  const r = Router()
+  r.get('/', requireAuth, async (_req: Request, res: Response) => {
+    res.json({ studio: (await getSettings()).studio })
+  })
+  return r
+}
 
 export function settingsRoutes() {
   const r = Router()

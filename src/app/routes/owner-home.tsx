@@ -1,0 +1,88 @@
+import { useMemo } from 'react'
+import { formatDate } from '@shared/domain/dates/dates'
+import { PAYMENT_TERMS_LABELS, SHOP_STATUS_LABELS } from '@shared/schemas/shops'
+import type { ShopSummary } from '@shared/schemas/shops'
+import { Badge } from '@/components/ui/badge'
+import { LinkButton } from '@/components/ui/button'
+import { Card, CardBody, CardHeader } from '@/components/ui/card'
+import { DataTable, dataTableColumnHelper } from '@/components/ui/data-table'
+import { PageHeader } from '@/components/ui/page-header'
+import { LoadingBlock } from '@/components/ui/spinner'
+import { Stat } from '@/components/ui/stat'
+import { paths } from '@/config/paths'
+import { useMe } from '@/features/auth/api/me'
+import { useShops, useStudioProfile } from '@/features/studio/api/studio'
+import { useUsers } from '@/features/team/api/users'
+
+const col = dataTableColumnHelper<ShopSummary>()
+const columns = col.columns([
+  col.accessor('tradingName', {
+    header: 'Shop',
+    cell: (c) => (
+      <span>
+        <span className="block font-medium text-ink-900">{c.getValue()}</span>
+        <span className="block text-xs text-ink-700">{c.row.original.contactName}</span>
+      </span>
+    ),
+  }),
+  col.accessor((s) => s.tierName ?? '—', { id: 'tier', header: 'Tier' }),
+  col.accessor((s) => PAYMENT_TERMS_LABELS[s.paymentTerms], { id: 'terms', header: 'Terms' }),
+  col.accessor((s) => SHOP_STATUS_LABELS[s.status], {
+    id: 'status',
+    header: 'Status',
+    cell: (c) => <Badge tone={c.row.original.status === 'active' ? 'green' : c.row.original.status === 'applied' ? 'sky' : 'honey'}>{c.getValue()}</Badge>,
+  }),
+  col.accessor((s) => (s.certificateOnFile ? (s.certificateExpiresOn ? `until ${formatDate(s.certificateExpiresOn)}` : 'on file') : 'none'), {
+    id: 'certificate',
+    header: 'Resale certificate',
+  }),
+])
+
+export function Component() {
+  const me = useMe()
+  const studio = useStudioProfile()
+  const shops = useShops()
+  const users = useUsers()
+  const counts = useMemo(() => {
+    const list = shops.data ?? []
+    return {
+      active: list.filter((s) => s.status === 'active').length,
+      applied: list.filter((s) => s.status === 'applied').length,
+      held: list.filter((s) => s.status === 'on_hold').length,
+    }
+  }, [shops.data])
+  const staff = (users.data ?? []).filter((u) => u.role !== 'buyer' && u.active).length
+
+  return (
+    <>
+      <PageHeader
+        title={`Good to see you, ${me.data?.name.split(' ')[0] ?? ''}`}
+        description={studio.data ? `${studio.data.name} · wholesale overview` : 'Wholesale overview'}
+        actions={<LinkButton to={paths.owner.team}>Invite someone</LinkButton>}
+      />
+      <div className="mb-6 grid grid-cols-2 gap-4 lg:grid-cols-4">
+        <Stat label="Active shop accounts" value={shops.isPending ? '…' : counts.active} />
+        <Stat label="Applications waiting" value={shops.isPending ? '…' : counts.applied} tone={counts.applied ? 'honey' : 'default'} />
+        <Stat label="Accounts on hold" value={shops.isPending ? '…' : counts.held} />
+        <Stat label="Studio staff" value={users.isPending ? '…' : staff} />
+      </div>
+      <Card>
+        <CardHeader title="Shop accounts" description="Every wholesale account with its tier, terms and certificate." />
+        <CardBody>
+          {shops.isPending ? (
+            <LoadingBlock />
+          ) : (
+            <DataTable
+              label="Shop accounts"
+              columns={columns}
+              data={shops.data ?? []}
+              getRowId={(s) => String(s.id)}
+              searchable
+              emptyMessage="No shop accounts yet. Accounts appear here when a shop applies or you invite a buyer."
+            />
+          )}
+        </CardBody>
+      </Card>
+    </>
+  )
+}

@@ -1,0 +1,69 @@
+/**
+ * Debian's chromium driven by playwright-core: a fresh profile per browser, no background
+ * networking (this machine has no outside network), screenshots on demand.
+ */
+import fs from 'node:fs'
+import path from 'node:path'
+import { chromium } from 'playwright-core'
+import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { inject } from 'vitest'
+import { DEMO } from '@tests/factories/api-client'
+import type { DemoCaller } from '@tests/factories/api-client'
+
+const EXECUTABLE = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium'
+
+export async function launch(): Promise<Browser> {
+  // playwright-core gives each launch a fresh temporary profile of its own.
+  return chromium.launch({
+    executablePath: EXECUTABLE,
+    headless: true,
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
+  })
+}
+
+export const baseUrl = () => inject('baseUrl')
+
+/** A new browser context (its own cookies) with the base URL set. */
+export async function newPage(browser: Browser, viewport = { width: 1280, height: 860 }): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ baseURL: baseUrl(), viewport, acceptDownloads: true })
+  const page = await context.newPage()
+  page.setDefaultTimeout(15_000)
+  return { context, page }
+}
+
+/** Signs in through the form, as a person would. */
+export async function signIn(page: Page, who: DemoCaller) {
+  await page.goto('/sign-in')
+  await page.getByLabel('E-mail').fill(DEMO[who].email)
+  await page.getByLabel('Password').fill(DEMO[who].password)
+  await page.getByRole('button', { name: 'Sign in' }).click()
+  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'))
+}
+
+export async function screenshot(page: Page, name: string) {
+  const dir = path.resolve('test-results', 'screenshots')
+  fs.mkdirSync(dir, { recursive: true })
+  await page.screenshot({ path: path.join(dir, `${name}.png`), fullPage: true })
+}
+
+/** axe-core run inside the page; returns the serious and critical violations. */
+export async function axeViolations(page: Page) {
+  const source = fs.readFileSync(path.resolve('node_modules/axe-core/axe.min.js'), 'utf8')
+  // Evaluated through the devtools protocol: the page's CSP (script-src 'self') stays in force.
+  await page.evaluate(`${source}\n;true`)
+  const result = await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: (ctx: Document, o: object) => Promise<{ violations: { id: string; impact: string; help: string; nodes: { target: string[] }[] }[] }> } }).axe
+    return axe.run(document, { resultTypes: ['violations'] })
+  })
+  return result.violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(', ')}`)
+}
