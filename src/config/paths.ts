@@ -26,14 +26,15 @@ export const homeFor: Record<Role, string> = {
   buyer: paths.buyer.home,
 }
 
-export type NavItem = { to: string; label: string; end?: boolean }
+/** `group` names the sidebar section an item sits in. */
+export type NavItem = { to: string; label: string; end?: boolean; group?: string }
 
 /** Each role's own navigation. */
 export const navFor: Record<Role, NavItem[]> = {
   owner: [
     { to: paths.owner.home, label: 'Overview', end: true },
-    { to: paths.owner.team, label: 'Team' },
-    { to: paths.owner.settings, label: 'Settings' },
+    { to: paths.owner.team, label: 'Team', group: 'Studio' },
+    { to: paths.owner.settings, label: 'Settings', group: 'Studio' },
   ],
   packer: [{ to: paths.packer.home, label: 'Packing', end: true }],
   buyer: [{ to: paths.buyer.home, label: 'My account', end: true }],
