@@ -66,8 +66,10 @@ export async function startLocalStack(log: (l: string) => void = console.log): P
   try {
     const done = await migrate(sequelize)
     if (done.length) log(`Applied ${done.length} migration(s).`)
-    seeded = await seedIfEmpty(sequelize)
+    const seeding = await seedIfEmpty(sequelize)
+    seeded = seeding === 'seeded'
     if (seeded) log('Loaded the demo data into the empty database.')
+    if (seeding === 'topped-up') log('Added the newer parts of the demo scenario.')
   } finally {
     await sequelize.close()
   }

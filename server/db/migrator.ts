@@ -32,11 +32,22 @@ export async function migrate(s: Sequelize) {
   return migrator(s).up()
 }
 
-/** Demo data goes only into an empty database: one with no users at all. */
-export async function seedIfEmpty(s: Sequelize): Promise<boolean> {
+/**
+ * Demo data goes only into an empty database (one with no users). A database that was filled with
+ * the demo scenario also gets the demo seeders added since (new parts of the scenario); a studio's
+ * own database, never seeded, is left alone.
+ */
+export async function seedIfEmpty(s: Sequelize): Promise<'seeded' | 'topped-up' | 'untouched'> {
   const [rows] = await s.query('SELECT count(*)::int AS n FROM users')
   const n = (rows as { n: number }[])[0]?.n ?? 0
-  if (n > 0) return false
-  await seeder(s).up()
-  return true
+  const seeds = seeder(s)
+  if (n === 0) {
+    await seeds.up()
+    return 'seeded'
+  }
+  if ((await seeds.executed()).length === 0) return 'untouched'
+  const pending = await seeds.pending()
+  if (pending.length === 0) return 'untouched'
+  await seeds.up()
+  return 'topped-up'
 }
