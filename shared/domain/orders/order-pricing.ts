@@ -1,11 +1,10 @@
 import { DomainError } from '@shared/domain/errors'
 import { percentOf } from '@shared/domain/money/money'
 import { compareIso } from '@shared/domain/dates/dates'
+import { selectPriceBreak } from '@shared/domain/pricing/pricing'
+import type { PriceBreak } from '@shared/domain/pricing/pricing'
 
-export interface PriceBreak {
-  minCases: number
-  unitPriceCents: number
-}
+export type { PriceBreak }
 
 export interface PricingLine {
   productId: number
@@ -87,7 +86,6 @@ export function validateOrderLines(lines: readonly { productId: number; cases: n
 
 /** The break of the line's own case count: the greatest minCases ≤ cases. */
 export function unitPriceFor(breaks: readonly PriceBreak[], cases: number, field = 'cases'): number {
-  let best: PriceBreak | undefined
   const seen = new Set<number>()
   breaks.forEach((b, i) => {
     requireWhole(b.minCases, 1, 'invalid_price_breaks', `breaks.${i}.minCases`, 'Minimum cases')
@@ -100,9 +98,9 @@ export function unitPriceFor(breaks: readonly PriceBreak[], cases: number, field
       )
     }
     seen.add(b.minCases)
-    if (b.minCases <= cases && (best === undefined || b.minCases > best.minCases)) best = b
   })
-  if (best === undefined) {
+  const best = selectPriceBreak(breaks, cases)
+  if (best === null) {
     const message =
       breaks.length === 0
         ? 'This product has no price at this tier'

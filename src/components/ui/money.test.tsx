@@ -9,10 +9,14 @@ describe('formatMoney', () => {
     { cents: 0, currency: 'USD', expected: '$0.00' },
     { cents: -1999, currency: 'USD', expected: '-$19.99' },
     { cents: 1050, currency: 'EUR', expected: '€10.50' },
-    // The yen has no minor unit (ISO 4217 exponent 0): 500 is ¥500, not ¥5.
-    { cents: 500, currency: 'JPY', expected: '¥500' },
   ])('$cents in $currency is $expected', ({ cents, currency, expected }) => {
     expect(formatMoney(cents, currency, 'en-US')).toBe(expected)
+  })
+})
+
+describe('formatMoney refuses what it cannot show exactly', () => {
+  it('a currency without hundredths (ISO 4217 exponent 0, e.g. JPY) is refused, not shown off by 100', () => {
+    expect(() => formatMoney(500, 'JPY')).toThrow(/two decimal places/)
   })
 })
 
