@@ -129,5 +129,7 @@ export const up: Migration = async ({ context: { sequelize } }) => {
 }
 
 export const down: Migration = async ({ context: { sequelize } }) => {
-  await sequelize.query('DROP TABLE price_breaks, products, recipe_items, recipes, ingredient_lots, ingredients CASCADE')
+  await sequelize.query(
+    'DROP TABLE price_breaks, products, recipe_items, recipes, ingredient_lots, ingredients CASCADE',
+  )
 }

@@ -26,10 +26,16 @@ async function main() {
   }
   const bin = (n: string) => path.join(ROOT, 'node_modules', '.bin', n)
   const children = [
-    spawn(bin('tsx'), ['watch', '--clear-screen=false', 'server/index.ts'], { cwd: ROOT, env, stdio: 'inherit' }),
+    spawn(bin('tsx'), ['watch', '--clear-screen=false', 'server/index.ts'], {
+      cwd: ROOT,
+      env,
+      stdio: 'inherit',
+    }),
     spawn(bin('vite'), ['--port', String(vitePort), '--strictPort'], { cwd: ROOT, env, stdio: 'inherit' }),
   ]
-  log(`App (Vite) http://127.0.0.1:${vitePort}  ·  API http://127.0.0.1:${apiPort}  ·  Mail ${stack.mail.url}`)
+  log(
+    `App (Vite) http://127.0.0.1:${vitePort}  ·  API http://127.0.0.1:${apiPort}  ·  Mail ${stack.mail.url}`,
+  )
   const stop = async () => {
     for (const c of children) c.kill('SIGTERM')
     await stack.stop()

@@ -37,7 +37,9 @@ async function main() {
   const port = Number(process.env.PORT ?? 3000)
   const host = '127.0.0.1'
   if (!(await isPortFree(port, host))) {
-    throw new Error(`Port ${port} is already in use. Stop what runs there, or start with PORT=3100 npm start.`)
+    throw new Error(
+      `Port ${port} is already in use. Stop what runs there, or start with PORT=3100 npm start.`,
+    )
   }
   buildClientIfStale()
   const stack = await startLocalStack(log)
@@ -83,7 +85,9 @@ async function main() {
   })
   server.on('message', (m: { type?: string }) => {
     if (m?.type !== 'listening') return
-    const buyers = DEMO_SHOPS.map((s) => `    buyer   ${s.buyer.email.padEnd(28)} ${DEMO_PASSWORDS.buyer}   (${s.tradingName})`)
+    const buyers = DEMO_SHOPS.map(
+      (s) => `    buyer   ${s.buyer.email.padEnd(28)} ${DEMO_PASSWORDS.buyer}   (${s.tradingName})`,
+    )
     console.log(
       [
         '',

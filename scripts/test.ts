@@ -21,13 +21,21 @@ if (wantsBrowser) {
 const report = path.join(ROOT, 'test-results', 'vitest.json')
 fs.mkdirSync(path.dirname(report), { recursive: true })
 fs.rmSync(report, { force: true })
-const run = spawnSync(bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...args], {
-  cwd: ROOT,
-  stdio: 'inherit',
-  env: { ...process.env, VITE_CONFIG_NATIVE_IGNORE_WARNING: 'true' },
-})
+const run = spawnSync(
+  bin('vitest'),
+  ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...args],
+  {
+    cwd: ROOT,
+    stdio: 'inherit',
+    env: { ...process.env, VITE_CONFIG_NATIVE_IGNORE_WARNING: 'true' },
+  },
+)
 if (fs.existsSync(report)) {
-  const r = JSON.parse(fs.readFileSync(report, 'utf8')) as { numPassedTests: number; numFailedTests: number; numPendingTests: number }
+  const r = JSON.parse(fs.readFileSync(report, 'utf8')) as {
+    numPassedTests: number
+    numFailedTests: number
+    numPendingTests: number
+  }
   console.log(`\n${r.numPassedTests} passed, ${r.numFailedTests} failed, ${r.numPendingTests} skipped`)
 }
 process.exit(run.status ?? 1)

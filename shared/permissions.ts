@@ -38,4 +38,8 @@ export function isRole(value: unknown): value is Role {
   return typeof value === 'string' && (ROLES as readonly string[]).includes(value)
 }
 
-export const ROLE_LABELS: Record<Role, string> = { owner: 'Studio owner', packer: 'Packer', buyer: 'Shop buyer' }
+export const ROLE_LABELS: Record<Role, string> = {
+  owner: 'Studio owner',
+  packer: 'Packer',
+  buyer: 'Shop buyer',
+}

@@ -58,7 +58,9 @@ export async function startLocalStack(log: (l: string) => void = console.log): P
   const already = runningPort(dataDir)
   const pgPort = already ?? (await pickPort(wantedPg, 'PostgreSQL', log))
   const cluster = startCluster({ dataDir, port: pgPort, superPassword: secrets.pgSuperPassword, log })
-  log(`PostgreSQL ${cluster.startedHere ? 'started' : 'already running'} on 127.0.0.1:${cluster.port} (${cluster.dataDir})`)
+  log(
+    `PostgreSQL ${cluster.startedHere ? 'started' : 'already running'} on 127.0.0.1:${cluster.port} (${cluster.dataDir})`,
+  )
   const databaseUrl = await ensureDatabase(cluster, 'lathercase', 'lathercase', secrets.pgAppPassword)
 
   const sequelize = new Sequelize(databaseUrl, { dialect: 'postgres', dialectModule: pg, logging: false })

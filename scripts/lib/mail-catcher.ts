@@ -9,7 +9,11 @@ export interface MailCatcher {
 }
 
 /** maildev on loopback with its own mail folder. */
-export async function startMailCatcher(opts: { smtpPort: number; webPort: number; dir: string }): Promise<MailCatcher> {
+export async function startMailCatcher(opts: {
+  smtpPort: number
+  webPort: number
+  dir: string
+}): Promise<MailCatcher> {
   fs.mkdirSync(opts.dir, { recursive: true })
   const maildev = new MailDev({
     smtp: opts.smtpPort,

@@ -45,7 +45,10 @@ export function findPgBinDir(): string | null {
   const fromEnv = process.env.PG_BINDIR
   if (fromEnv && has(path.join(fromEnv, 'initdb'))) return fromEnv
   try {
-    const dir = execFileSync('pg_config', ['--bindir'], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'ignore'] }).trim()
+    const dir = execFileSync('pg_config', ['--bindir'], {
+      encoding: 'utf8',
+      stdio: ['ignore', 'pipe', 'ignore'],
+    }).trim()
     if (dir && has(path.join(dir, 'initdb')) && has(path.join(dir, 'pg_ctl'))) return dir
   } catch {
     // no pg_config on PATH
@@ -72,20 +75,24 @@ export function ensurePostgresInstalled(log: (line: string) => void = console.lo
         'or point PG_BINDIR at a folder that holds initdb and pg_ctl, then run npm start again.',
     )
   }
-  log('PostgreSQL is not installed; installing Debian\'s package (this happens once)…')
+  log("PostgreSQL is not installed; installing Debian's package (this happens once)…")
   // Keep Debian from creating and starting its own cluster: we run our own under .data/.
   fs.mkdirSync('/etc/postgresql-common/createcluster.d', { recursive: true })
   fs.writeFileSync('/etc/postgresql-common/createcluster.d/lathercase.conf', 'create_main_cluster = false\n')
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' }
   const install = () =>
-    spawnSync('apt-get', ['install', '-y', '--no-install-recommends', 'postgresql'], { stdio: 'inherit', env })
+    spawnSync('apt-get', ['install', '-y', '--no-install-recommends', 'postgresql'], {
+      stdio: 'inherit',
+      env,
+    })
   let r = install()
   if (r.status !== 0) {
     spawnSync('apt-get', ['update'], { stdio: 'inherit', env })
     r = install()
   }
   const dir = findPgBinDir()
-  if (r.status !== 0 || !dir) throw new Error('Installing PostgreSQL with apt-get failed; see the output above.')
+  if (r.status !== 0 || !dir)
+    throw new Error('Installing PostgreSQL with apt-get failed; see the output above.')
   return dir
 }
 
@@ -213,7 +220,12 @@ export function runningPort(dataDir: string): number | null {
 }
 
 /** Creates the application role and database when missing (idempotent). */
-export async function ensureDatabase(cluster: Cluster, db: string, user: string, password: string): Promise<string> {
+export async function ensureDatabase(
+  cluster: Cluster,
+  db: string,
+  user: string,
+  password: string,
+): Promise<string> {
   const client = new pg.Client({ connectionString: cluster.superUrl() })
   await client.connect()
   try {

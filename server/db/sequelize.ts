@@ -14,7 +14,10 @@ export const sequelize = new Sequelize(env.DATABASE_URL, {
 })
 
 /** A plain pg pool for the session store and hot read paths that skip the ORM. */
-export const pool = new pg.Pool({ connectionString: env.DATABASE_URL, max: Math.max(2, Math.ceil(env.DB_POOL_MAX / 2)) })
+export const pool = new pg.Pool({
+  connectionString: env.DATABASE_URL,
+  max: Math.max(2, Math.ceil(env.DB_POOL_MAX / 2)),
+})
 
 export async function closeDb() {
   await Promise.allSettled([sequelize.close(), pool.end()])

@@ -32,7 +32,13 @@ export function csrfProtection(exempt: string[] = []): RequestHandler {
     const sent = req.get('x-csrf-token')
     const expected = req.session?.csrfToken
     if (!sent || !expected || !same(sent, expected)) {
-      return next(new AppError(403, 'csrf', 'The form has expired or did not come from this site. Reload the page and try again.'))
+      return next(
+        new AppError(
+          403,
+          'csrf',
+          'The form has expired or did not come from this site. Reload the page and try again.',
+        ),
+      )
     }
     next()
   }

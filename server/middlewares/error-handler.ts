@@ -16,7 +16,12 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   const h = err as HttpishError
   if (err instanceof AppError) e = err
   else if (err instanceof DomainError) {
-    e = new AppError(400, err.code, err.message, err.field ? [{ field: err.field, message: err.message }] : undefined)
+    e = new AppError(
+      400,
+      err.code,
+      err.message,
+      err.field ? [{ field: err.field, message: err.message }] : undefined,
+    )
   } else if (h.type === 'entity.parse.failed') {
     e = new AppError(400, 'invalid_input', 'The request body is not valid JSON.')
   } else if (h.type === 'entity.too.large' || h.code === 'LIMIT_FILE_SIZE') {
@@ -24,7 +29,12 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else if (h.type === 'encoding.unsupported' || h.type === 'charset.unsupported') {
     e = new AppError(415, 'unsupported_media_type', 'The request body encoding is not supported.')
   } else if (typeof h.code === 'string' && h.code.startsWith('LIMIT_')) {
-    e = new AppError(400, 'invalid_upload', (err as Error).message, h.field ? [{ field: h.field, message: (err as Error).message }] : undefined)
+    e = new AppError(
+      400,
+      'invalid_upload',
+      (err as Error).message,
+      h.field ? [{ field: h.field, message: (err as Error).message }] : undefined,
+    )
   } else {
     const status = h.status ?? h.statusCode
     if (status && status >= 400 && status < 500) {
@@ -36,9 +46,12 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
         error: err instanceof Error ? err.stack : String(err),
       })
       e = new AppError(500, 'internal', 'Something went wrong on our side. Please try again.')
-      if (env.NODE_ENV !== 'production' && err instanceof Error) e = new AppError(500, 'internal', err.message)
+      if (env.NODE_ENV !== 'production' && err instanceof Error)
+        e = new AppError(500, 'internal', err.message)
     }
   }
   if (res.headersSent) return
-  res.status(e.status).json({ error: { code: e.code, message: e.message, ...(e.details ? { details: e.details } : {}) } })
+  res
+    .status(e.status)
+    .json({ error: { code: e.code, message: e.message, ...(e.details ? { details: e.details } : {}) } })
 }

@@ -36,14 +36,18 @@ export function validate(schemas: Schemas): RequestHandler {
     }
     if (details.length > 0) {
       const first = details[0]!
-      next(AppError.invalid(details.length === 1 ? `${first.field}: ${first.message}` : 'Some fields need attention.', details))
+      next(
+        AppError.invalid(
+          details.length === 1 ? `${first.field}: ${first.message}` : 'Some fields need attention.',
+          details,
+        ),
+      )
       return
     }
     req.valid = valid
     next()
   }
 }
-
 
 /** Typed access to what validate() parsed. */
 export function body<S extends z.ZodType>(req: Request, _schema: S): z.output<S> {

@@ -44,7 +44,10 @@ export const SessionUserSchema = z.object({
 export type SessionUser = z.infer<typeof SessionUserSchema>
 
 export const ChangePasswordSchema = z.object({
-  currentPassword: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(200),
+  currentPassword: z
+    .string({ error: 'Enter your current password.' })
+    .min(1, 'Enter your current password.')
+    .max(200),
   newPassword: NewPasswordSchema,
 })
 export type ChangePasswordInput = z.infer<typeof ChangePasswordSchema>

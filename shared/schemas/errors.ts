@@ -11,6 +11,8 @@ export const ErrorBodySchema = z.object({
 export type ErrorBody = z.infer<typeof ErrorBodySchema>
 
 /** zod issues → field details (every problem at once). */
-export function issuesToDetails(issues: readonly { path: readonly PropertyKey[]; message: string }[]): ErrorDetail[] {
+export function issuesToDetails(
+  issues: readonly { path: readonly PropertyKey[]; message: string }[],
+): ErrorDetail[] {
   return issues.map((i) => ({ field: i.path.map(String).join('.') || '(body)', message: i.message }))
 }

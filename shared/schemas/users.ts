@@ -9,7 +9,10 @@ export const InviteUserSchema = z
     role: z.enum(ROLES, { error: 'Choose a role.' }),
     shopId: z.coerce.number<string | number>().int().positive().nullish(),
   })
-  .refine((v) => v.role !== 'buyer' || !!v.shopId, { path: ['shopId'], message: 'A buyer belongs to a shop.' })
+  .refine((v) => v.role !== 'buyer' || !!v.shopId, {
+    path: ['shopId'],
+    message: 'A buyer belongs to a shop.',
+  })
 export type InviteUserInput = z.infer<typeof InviteUserSchema>
 
 export const UpdateUserSchema = z.object({

@@ -11,7 +11,8 @@ export function App() {
     // A lost session (expired, signed out elsewhere, deactivated) sends the person to sign in.
     setUnauthorizedHandler(() => {
       const here = window.location.pathname + window.location.search
-      if (!here.startsWith(paths.signIn)) window.location.assign(`${paths.signIn}?next=${encodeURIComponent(here)}`)
+      if (!here.startsWith(paths.signIn))
+        window.location.assign(`${paths.signIn}?next=${encodeURIComponent(here)}`)
     })
     return () => setUnauthorizedHandler(null)
   }, [])

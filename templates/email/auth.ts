@@ -7,14 +7,26 @@ export function passwordResetEmail(p: { name: string; link: string; studioName: 
     studioName: p.studioName,
     greeting: `Hello ${p.name},`,
     blocks: [
-      { kind: 'p', text: 'Someone asked to reset the password of your account. If it was you, choose a new one here:' },
+      {
+        kind: 'p',
+        text: 'Someone asked to reset the password of your account. If it was you, choose a new one here:',
+      },
       { kind: 'button', text: 'Choose a new password', href: p.link },
-      { kind: 'small', text: 'The link works once and expires in one hour. If you did not ask for it, ignore this e-mail: your password stays as it is.' },
+      {
+        kind: 'small',
+        text: 'The link works once and expires in one hour. If you did not ask for it, ignore this e-mail: your password stays as it is.',
+      },
     ],
   })
 }
 
-export function invitationEmail(p: { name: string; link: string; studioName: string; roleLabel: string; shopName?: string | null }): Email {
+export function invitationEmail(p: {
+  name: string
+  link: string
+  studioName: string
+  roleLabel: string
+  shopName?: string | null
+}): Email {
   return renderEmail({
     subject: `You are invited to ${p.studioName} on Lathercase`,
     studioName: p.studioName,

@@ -1,6 +1,9 @@
 /** Shared frame of every e-mail: plain text first, a simple HTML twin with inline styles. */
 export function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!)
+  return s.replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!,
+  )
 }
 
 export type Email = { subject: string; text: string; html: string }
@@ -11,7 +14,12 @@ export type EmailBlock =
   | { kind: 'list'; items: string[] }
   | { kind: 'small'; text: string }
 
-export function renderEmail(opts: { subject: string; studioName: string; greeting: string; blocks: EmailBlock[] }): Email {
+export function renderEmail(opts: {
+  subject: string
+  studioName: string
+  greeting: string
+  blocks: EmailBlock[]
+}): Email {
   const text = [
     opts.greeting,
     '',
@@ -25,7 +33,8 @@ export function renderEmail(opts: { subject: string; studioName: string; greetin
   const body = opts.blocks
     .map((b) => {
       if (b.kind === 'p') return `<p style="margin:0 0 16px">${escapeHtml(b.text)}</p>`
-      if (b.kind === 'small') return `<p style="margin:0 0 16px;color:#6f685f;font-size:13px">${escapeHtml(b.text)}</p>`
+      if (b.kind === 'small')
+        return `<p style="margin:0 0 16px;color:#6f685f;font-size:13px">${escapeHtml(b.text)}</p>`
       if (b.kind === 'list')
         return `<ul style="margin:0 0 16px;padding-left:20px">${b.items.map((i) => `<li>${escapeHtml(i)}</li>`).join('')}</ul>`
       return `<p style="margin:0 0 20px"><a href="${escapeHtml(b.href)}" style="display:inline-block;background:#3b5b2d;color:#fff;padding:10px 18px;border-radius:6px;text-decoration:none;font-weight:500">${escapeHtml(b.text)}</a></p>`

@@ -72,7 +72,9 @@ describe('POST /api/auth/login', () => {
     const c = new ApiClient(throttled)
     const statuses: number[] = []
     for (let i = 0; i < 10; i++) {
-      statuses.push((await c.post('/api/auth/login', { email: DEMO.buyerB.email, password: `guess-${i}` })).status)
+      statuses.push(
+        (await c.post('/api/auth/login', { email: DEMO.buyerB.email, password: `guess-${i}` })).status,
+      )
     }
     expect(statuses.slice(0, 8).every((s) => s === 401)).toBe(true)
     expect(statuses.at(-1)).toBe(429)
@@ -115,7 +117,9 @@ describe('password reset by e-mail', () => {
     const token = new URL(link).searchParams.get('token')!
     const info = await c.get(`/api/auth/tokens/${token}`).expect(200)
     expect(info.body).toMatchObject({ purpose: 'reset', email: DEMO.buyerC.email })
-    expect((await c.post('/api/auth/set-password', { token, password: 'a-brand-new-password' })).status).toBe(204)
+    expect((await c.post('/api/auth/set-password', { token, password: 'a-brand-new-password' })).status).toBe(
+      204,
+    )
     const again = await c.post('/api/auth/set-password', { token, password: 'another-new-password' })
     expect(again.status).toBe(400)
     expect(again.body.error.details[0].field).toBe('token')

@@ -32,7 +32,10 @@ export async function launch(): Promise<Browser> {
 export const baseUrl = () => inject('baseUrl')
 
 /** A new browser context (its own cookies) with the base URL set. */
-export async function newPage(browser: Browser, viewport = { width: 1280, height: 860 }): Promise<{ context: BrowserContext; page: Page }> {
+export async function newPage(
+  browser: Browser,
+  viewport = { width: 1280, height: 860 },
+): Promise<{ context: BrowserContext; page: Page }> {
   const context = await browser.newContext({ baseURL: baseUrl(), viewport, acceptDownloads: true })
   const page = await context.newPage()
   page.setDefaultTimeout(15_000)
@@ -60,10 +63,27 @@ export async function axeViolations(page: Page) {
   // Evaluated through the devtools protocol: the page's CSP (script-src 'self') stays in force.
   await page.evaluate(`${source}\n;true`)
   const result = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: Document, o: object) => Promise<{ violations: { id: string; impact: string; help: string; nodes: { target: string[] }[] }[] }> } }).axe
+    const axe = (
+      window as unknown as {
+        axe: {
+          run: (
+            ctx: Document,
+            o: object,
+          ) => Promise<{
+            violations: { id: string; impact: string; help: string; nodes: { target: string[] }[] }[]
+          }>
+        }
+      }
+    ).axe
     return axe.run(document, { resultTypes: ['violations'] })
   })
   return result.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(', ')}`)
+    .map(
+      (v) =>
+        `${v.id} (${v.impact}): ${v.help} — ${v.nodes
+          .map((n) => n.target.join(' '))
+          .slice(0, 3)
+          .join(', ')}`,
+    )
 }

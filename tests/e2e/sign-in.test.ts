@@ -27,16 +27,21 @@ describe('signing in', () => {
     ['owner', /\/studio$/, 'Good to see you'],
     ['packer', /\/packing$/, 'Packing'],
     ['buyerA', /\/shop$/, 'Juniper & Vine'],
-  ] as const)('%s lands on their own home, with no serious accessibility problems', async (who, url, heading) => {
-    const { page, context } = await newPage(browser)
-    await signIn(page, who)
-    await page.waitForURL(url)
-    await expect.poll(() => page.getByRole('heading', { level: 1, name: new RegExp(heading) }).isVisible()).toBe(true)
-    await page.waitForLoadState('networkidle')
-    expect(await axeViolations(page)).toEqual([])
-    await screenshot(page, `home-${who}`)
-    await context.close()
-  })
+  ] as const)(
+    '%s lands on their own home, with no serious accessibility problems',
+    async (who, url, heading) => {
+      const { page, context } = await newPage(browser)
+      await signIn(page, who)
+      await page.waitForURL(url)
+      await expect
+        .poll(() => page.getByRole('heading', { level: 1, name: new RegExp(heading) }).isVisible())
+        .toBe(true)
+      await page.waitForLoadState('networkidle')
+      expect(await axeViolations(page)).toEqual([])
+      await screenshot(page, `home-${who}`)
+      await context.close()
+    },
+  )
 
   it('shows an error for a wrong password', async () => {
     const { page, context } = await newPage(browser)
@@ -53,7 +58,9 @@ describe('signing in', () => {
     const { page, context } = await newPage(browser)
     await signIn(page, 'buyerB')
     await page.goto('/studio/team')
-    await expect.poll(() => page.getByRole('heading', { name: 'This page is not for your account' }).isVisible()).toBe(true)
+    await expect
+      .poll(() => page.getByRole('heading', { name: 'This page is not for your account' }).isVisible())
+      .toBe(true)
     await context.close()
   })
 

@@ -25,15 +25,25 @@ export class ApiClient {
   // The token is fetched before the request is made: the agent attaches cookies at creation.
   async post(url: string, body?: unknown, headers: Record<string, string> = {}) {
     const token = await this.token()
-    return this.agent.post(url).set('X-CSRF-Token', token).set(headers).send(body as object)
+    return this.agent
+      .post(url)
+      .set('X-CSRF-Token', token)
+      .set(headers)
+      .send(body as object)
   }
   async put(url: string, body?: unknown) {
     const token = await this.token()
-    return this.agent.put(url).set('X-CSRF-Token', token).send(body as object)
+    return this.agent
+      .put(url)
+      .set('X-CSRF-Token', token)
+      .send(body as object)
   }
   async patch(url: string, body?: unknown) {
     const token = await this.token()
-    return this.agent.patch(url).set('X-CSRF-Token', token).send(body as object)
+    return this.agent
+      .patch(url)
+      .set('X-CSRF-Token', token)
+      .send(body as object)
   }
   async delete(url: string) {
     const token = await this.token()

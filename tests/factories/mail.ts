@@ -24,7 +24,9 @@ export async function waitForMail(to: string, subject: RegExp, timeoutMs = 10_00
   const until = Date.now() + timeoutMs
   for (;;) {
     const found = (await allMail())
-      .filter((m) => m.to.some((t) => t.address.toLowerCase() === to.toLowerCase()) && subject.test(m.subject))
+      .filter(
+        (m) => m.to.some((t) => t.address.toLowerCase() === to.toLowerCase()) && subject.test(m.subject),
+      )
       .at(-1)
     if (found) return found
     if (Date.now() > until) throw new Error(`no e-mail to ${to} matching ${subject} within ${timeoutMs} ms`)

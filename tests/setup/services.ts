@@ -44,7 +44,11 @@ export default async function setup(project: TestProject) {
     log: () => {},
   })
   let stopped = false
-  const mail = await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort(), dir: path.join(base, 'mail') })
+  const mail = await startMailCatcher({
+    smtpPort: await freePort(),
+    webPort: await freePort(),
+    dir: path.join(base, 'mail'),
+  })
   const teardown = async () => {
     if (stopped) return
     stopped = true

@@ -9,7 +9,13 @@ export async function audit(
   await sequelize.query(
     'INSERT INTO audit_events (user_id, action, entity, entity_id, data) VALUES ($1, $2, $3, $4, $5)',
     {
-      bind: [event.userId, event.action, event.entity, event.entityId ?? null, JSON.stringify(event.data ?? null)],
+      bind: [
+        event.userId,
+        event.action,
+        event.entity,
+        event.entityId ?? null,
+        JSON.stringify(event.data ?? null),
+      ],
       transaction,
     },
   )

@@ -1,6 +1,11 @@
 import type { NextFunction, Request, Response } from 'express'
 import type { createPassport } from '@server/modules/auth/passport'
-import { ChangePasswordSchema, LoginSchema, PasswordResetRequestSchema, SetPasswordSchema } from '@shared/schemas/auth'
+import {
+  ChangePasswordSchema,
+  LoginSchema,
+  PasswordResetRequestSchema,
+  SetPasswordSchema,
+} from '@shared/schemas/auth'
 import type { SessionUser } from '@shared/schemas/auth'
 import { AppError } from '@server/lib/app-error'
 import { csrfToken } from '@server/middlewares/csrf'
@@ -22,7 +27,14 @@ export function login(passport: ReturnType<typeof createPassport>) {
     req.body = body(req, LoginSchema) // passport-local reads the normalised e-mail from req.body
     passport.authenticate('local', (err: unknown, user: SessionUser | false) => {
       if (err) return next(err)
-      if (!user) return next(new AppError(401, 'invalid_credentials', 'That e-mail and password do not match an active account.'))
+      if (!user)
+        return next(
+          new AppError(
+            401,
+            'invalid_credentials',
+            'That e-mail and password do not match an active account.',
+          ),
+        )
       // Passport gives the session a new id at sign-in (no fixation); keepSessionInfo carries the
       // CSRF token over, so the page's token stays valid.
       req.login(user, { session: true, keepSessionInfo: true }, (e) => {

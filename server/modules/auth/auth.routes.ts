@@ -1,14 +1,25 @@
 import { Router } from 'express'
 import type { createPassport } from '@server/modules/auth/passport'
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit'
-import { ChangePasswordSchema, LoginSchema, PasswordResetRequestSchema, SetPasswordSchema } from '@shared/schemas/auth'
+import {
+  ChangePasswordSchema,
+  LoginSchema,
+  PasswordResetRequestSchema,
+  SetPasswordSchema,
+} from '@shared/schemas/auth'
 import { env } from '@server/config/env'
 import { AppError } from '@server/lib/app-error'
 import { requireAuth } from '@server/middlewares/require-role'
 import { validate } from '@server/middlewares/validate'
 import * as c from '@server/modules/auth/auth.controller'
 
-function limiter(opts: { windowMs: number; limit: number; key: 'ip' | 'ip+email'; skipSuccessful?: boolean; message: string }) {
+function limiter(opts: {
+  windowMs: number
+  limit: number
+  key: 'ip' | 'ip+email'
+  skipSuccessful?: boolean
+  message: string
+}) {
   return rateLimit({
     windowMs: opts.windowMs,
     limit: opts.limit,
@@ -17,7 +28,8 @@ function limiter(opts: { windowMs: number; limit: number; key: 'ip' | 'ip+email'
     skipSuccessfulRequests: opts.skipSuccessful ?? false,
     keyGenerator: (req) => {
       const ip = ipKeyGenerator(req.ip ?? '0.0.0.0')
-      const email = typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase().slice(0, 254) : ''
+      const email =
+        typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase().slice(0, 254) : ''
       return opts.key === 'ip' ? ip : `${ip}|${email}`
     },
     handler: (_req, _res, next) => next(new AppError(429, 'too_many_requests', opts.message)),

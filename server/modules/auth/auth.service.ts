@@ -24,7 +24,13 @@ export function hashPassword(password: string) {
   return bcrypt.hash(password, env.BCRYPT_ROUNDS)
 }
 
-export function toSessionUser(u: { id: number; email: string; name: string; role: SessionUser['role']; shopId: number | null }): SessionUser {
+export function toSessionUser(u: {
+  id: number
+  email: string
+  name: string
+  role: SessionUser['role']
+  shopId: number | null
+}): SessionUser {
   return { id: u.id, email: u.email, name: u.name, role: u.role, shopId: u.shopId }
 }
 
@@ -39,10 +45,13 @@ export async function verifyCredentials(email: string, password: string): Promis
 
 /** Loads the session's user on every request; a deactivated user's session stops working at once. */
 export async function loadSessionUser(id: number): Promise<SessionUser | null> {
-  const { rows } = await pool.query<{ id: number; email: string; name: string; role: SessionUser['role']; shop_id: number | null }>(
-    'SELECT id, email, name, role, shop_id FROM users WHERE id = $1 AND active',
-    [id],
-  )
+  const { rows } = await pool.query<{
+    id: number
+    email: string
+    name: string
+    role: SessionUser['role']
+    shop_id: number | null
+  }>('SELECT id, email, name, role, shop_id FROM users WHERE id = $1 AND active', [id])
   const r = rows[0]
   return r ? { id: r.id, email: r.email, name: r.name, role: r.role, shopId: r.shop_id } : null
 }
@@ -52,7 +61,13 @@ const sha256 = (s: string) => createHash('sha256').update(s).digest('hex')
 export async function issueToken(userId: number, purpose: 'reset' | 'invite', transaction?: Transaction) {
   const token = randomBytes(32).toString('base64url')
   await AuthToken.create(
-    { userId, purpose, tokenHash: sha256(token), expiresAt: new Date(Date.now() + TOKEN_LIFETIME[purpose]), usedAt: null },
+    {
+      userId,
+      purpose,
+      tokenHash: sha256(token),
+      expiresAt: new Date(Date.now() + TOKEN_LIFETIME[purpose]),
+      usedAt: null,
+    },
     { transaction },
   )
   return token
@@ -72,7 +87,8 @@ async function findLiveToken(token: string, transaction?: Transaction) {
 export async function describeToken(token: string) {
   const row = await findLiveToken(token)
   const user = await User.findByPk(row.userId)
-  if (!user || !user.active) throw AppError.field('token', 'This link has expired or was already used. Ask for a new one.')
+  if (!user || !user.active)
+    throw AppError.field('token', 'This link has expired or was already used. Ask for a new one.')
   return { purpose: row.purpose, email: user.email, name: user.name }
 }
 
@@ -96,14 +112,26 @@ export async function setPasswordWithToken(token: string, password: string) {
   await sequelize.transaction(async (t) => {
     const row = await findLiveToken(token, t)
     const user = await User.findByPk(row.userId, { transaction: t, lock: t.LOCK.UPDATE })
-    if (!user || !user.active) throw AppError.field('token', 'This link has expired or was already used. Ask for a new one.')
+    if (!user || !user.active)
+      throw AppError.field('token', 'This link has expired or was already used. Ask for a new one.')
     await user.update({ passwordHash }, { transaction: t })
-    await AuthToken.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: null }, transaction: t })
+    await AuthToken.update(
+      { usedAt: new Date() },
+      { where: { userId: user.id, usedAt: null }, transaction: t },
+    )
     await sequelize.query(`DELETE FROM sessions WHERE (sess->'passport'->>'user') = $1`, {
       bind: [String(user.id)],
       transaction: t,
     })
-    await audit({ userId: user.id, action: row.purpose === 'invite' ? 'invitation.accepted' : 'password.reset', entity: 'user', entityId: user.id }, t)
+    await audit(
+      {
+        userId: user.id,
+        action: row.purpose === 'invite' ? 'invitation.accepted' : 'password.reset',
+        entity: 'user',
+        entityId: user.id,
+      },
+      t,
+    )
   })
 }
 
@@ -112,11 +140,14 @@ export async function sendInvitation(user: User, transaction?: Transaction) {
   const settings = await getSettings()
   let shopName: string | null = null
   if (user.shopId) {
-    const rows = await sequelize.query<{ trading_name: string }>('SELECT trading_name FROM shops WHERE id = $1', {
-      bind: [user.shopId],
-      type: QueryTypes.SELECT,
-      transaction,
-    })
+    const rows = await sequelize.query<{ trading_name: string }>(
+      'SELECT trading_name FROM shops WHERE id = $1',
+      {
+        bind: [user.shopId],
+        type: QueryTypes.SELECT,
+        transaction,
+      },
+    )
     shopName = rows[0]?.trading_name ?? null
   }
   const mail = invitationEmail({
@@ -130,7 +161,12 @@ export async function sendInvitation(user: User, transaction?: Transaction) {
 }
 
 /** Changes one's own password; every other session of the person ends, this one stays. */
-export async function changePassword(userId: number, currentPassword: string, newPassword: string, keepSid: string) {
+export async function changePassword(
+  userId: number,
+  currentPassword: string,
+  newPassword: string,
+  keepSid: string,
+) {
   const user = await User.findByPk(userId)
   if (!user?.passwordHash || !(await bcrypt.compare(currentPassword, user.passwordHash))) {
     throw AppError.field('currentPassword', 'That is not your current password.')

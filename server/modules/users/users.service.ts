@@ -53,7 +53,12 @@ export async function inviteUser(input: InviteUserInput, byUserId: number): Prom
   const shopId = input.role === 'buyer' ? (input.shopId ?? null) : null
   const mail = await sequelize.transaction(async (t) => {
     if (await User.findOne({ where: { email: input.email }, transaction: t })) {
-      throw AppError.field('email', 'Someone with this e-mail address already has an account.', 409, 'email_taken')
+      throw AppError.field(
+        'email',
+        'Someone with this e-mail address already has an account.',
+        409,
+        'email_taken',
+      )
     }
     if (shopId) {
       const shop = await Shop.findByPk(shopId, { transaction: t })
@@ -62,10 +67,26 @@ export async function inviteUser(input: InviteUserInput, byUserId: number): Prom
       }
     }
     const user = await User.create(
-      { email: input.email, name: input.name, role: input.role, shopId, passwordHash: null, lastLoginAt: null },
+      {
+        email: input.email,
+        name: input.name,
+        role: input.role,
+        shopId,
+        passwordHash: null,
+        lastLoginAt: null,
+      },
       { transaction: t },
     )
-    await audit({ userId: byUserId, action: 'user.invited', entity: 'user', entityId: user.id, data: { role: user.role } }, t)
+    await audit(
+      {
+        userId: byUserId,
+        action: 'user.invited',
+        entity: 'user',
+        entityId: user.id,
+        data: { role: user.role },
+      },
+      t,
+    )
     return { id: user.id, mail: await sendInvitation(user, t) }
   })
   await sendMail(mail.mail)
@@ -90,7 +111,10 @@ export async function updateUser(id: number, patch: UpdateUserInput, byUserId: n
     if (!user) throw AppError.notFound('That person')
     await user.update(patch, { transaction: t })
     if (patch.active === false) {
-      await sequelize.query(`DELETE FROM sessions WHERE (sess->'passport'->>'user') = $1`, { bind: [String(id)], transaction: t })
+      await sequelize.query(`DELETE FROM sessions WHERE (sess->'passport'->>'user') = $1`, {
+        bind: [String(id)],
+        transaction: t,
+      })
     }
     await audit({ userId: byUserId, action: 'user.updated', entity: 'user', entityId: id, data: patch }, t)
   })

@@ -9,7 +9,10 @@ export function Component() {
   if (!me.data) return null
   return (
     <>
-      <PageHeader title="Your account" description={`${me.data.name} · ${me.data.email} · ${ROLE_LABELS[me.data.role]}`} />
+      <PageHeader
+        title="Your account"
+        description={`${me.data.name} · ${me.data.email} · ${ROLE_LABELS[me.data.role]}`}
+      />
       <Card>
         <CardHeader title="Password" description="Changing it signs you out everywhere else." />
         <CardBody>

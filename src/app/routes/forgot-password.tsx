@@ -5,7 +5,10 @@ import { ForgotPasswordForm } from '@/features/auth/components/forgot-password-f
 
 export function Component() {
   return (
-    <AuthLayout title="Reset your password" intro="Enter the e-mail address you sign in with; we will send you a link.">
+    <AuthLayout
+      title="Reset your password"
+      intro="Enter the e-mail address you sign in with; we will send you a link."
+    >
       <ForgotPasswordForm />
       <p className="mt-4 text-center text-sm">
         <Link to={paths.signIn} className="text-olive-800 underline">

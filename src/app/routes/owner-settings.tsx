@@ -9,7 +9,10 @@ export function Component() {
   const settings = useSettings()
   return (
     <>
-      <PageHeader title="Settings" description="The studio's profile as shops and documents show it, and the rules orders follow." />
+      <PageHeader
+        title="Settings"
+        description="The studio's profile as shops and documents show it, and the rules orders follow."
+      />
       {settings.isPending || !settings.data ? (
         <LoadingBlock />
       ) : (
@@ -21,16 +24,23 @@ export function Component() {
             </CardBody>
           </Card>
           <Card>
-            <CardHeader title="Order rules" description="The minimums and rates that orders are priced with." />
+            <CardHeader
+              title="Order rules"
+              description="The minimums and rates that orders are priced with."
+            />
             <CardBody>
               <dl className="grid gap-3 text-sm sm:grid-cols-2">
                 <div>
                   <dt className="text-ink-700">Opening order minimum</dt>
-                  <dd className="font-medium">{formatCents(settings.data.openingMinimumCents, settings.data.currency)}</dd>
+                  <dd className="font-medium">
+                    {formatCents(settings.data.openingMinimumCents, settings.data.currency)}
+                  </dd>
                 </div>
                 <div>
                   <dt className="text-ink-700">Reorder minimum</dt>
-                  <dd className="font-medium">{formatCents(settings.data.reorderMinimumCents, settings.data.currency)}</dd>
+                  <dd className="font-medium">
+                    {formatCents(settings.data.reorderMinimumCents, settings.data.currency)}
+                  </dd>
                 </div>
                 <div>
                   <dt className="text-ink-700">Sales tax without a certificate</dt>
@@ -38,7 +48,9 @@ export function Component() {
                 </div>
                 <div>
                   <dt className="text-ink-700">Labour rate</dt>
-                  <dd className="font-medium">{formatCents(settings.data.labourRateCents, settings.data.currency)} per hour</dd>
+                  <dd className="font-medium">
+                    {formatCents(settings.data.labourRateCents, settings.data.currency)} per hour
+                  </dd>
                 </div>
               </dl>
             </CardBody>

@@ -22,7 +22,13 @@ export function Component() {
         actions={<Button onClick={() => setInviting(true)}>Invite someone</Button>}
       />
       <Card>
-        <CardBody>{users.isPending || !me.data ? <LoadingBlock /> : <TeamTable users={users.data ?? []} selfId={me.data.id} />}</CardBody>
+        <CardBody>
+          {users.isPending || !me.data ? (
+            <LoadingBlock />
+          ) : (
+            <TeamTable users={users.data ?? []} selfId={me.data.id} />
+          )}
+        </CardBody>
       </Card>
       <InviteDialog open={inviting} onClose={() => setInviting(false)} shops={shops.data ?? []} />
     </>

@@ -21,7 +21,10 @@ export function Component() {
 
   if (!token || info.isError) {
     return (
-      <AuthLayout title="This link no longer works" intro="Links in our e-mails work once and expire after a while.">
+      <AuthLayout
+        title="This link no longer works"
+        intro="Links in our e-mails work once and expire after a while."
+      >
         <p className="text-sm text-ink-700">
           <Link to={paths.forgotPassword} className="text-olive-800 underline">
             Ask for a new link

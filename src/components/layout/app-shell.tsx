@@ -33,7 +33,9 @@ function NavList({ items, onNavigate }: { items: NavItem[]; onNavigate?: () => v
     <div className="flex flex-col gap-4">
       {grouped(items).map((g) => (
         <div key={g.name ?? 'main'}>
-          {g.name ? <p className="mb-1 px-3 text-xs font-medium uppercase tracking-wide text-ink-600">{g.name}</p> : null}
+          {g.name ? (
+            <p className="mb-1 px-3 text-xs font-medium uppercase tracking-wide text-ink-600">{g.name}</p>
+          ) : null}
           <ul className="flex flex-col gap-0.5" onClick={onNavigate}>
             {g.items.map((i) => (
               <li key={i.to}>
@@ -73,7 +75,11 @@ export function AppShell({ user }: { user: SessionUser }) {
       </a>
       <header className="no-print sticky top-0 z-20 border-b border-cream-300 bg-white">
         <div className="flex items-center gap-4 px-4 py-3">
-          <NavLink to={items[0]?.to ?? paths.root} className="rounded no-underline" aria-label="Lathercase home">
+          <NavLink
+            to={items[0]?.to ?? paths.root}
+            className="rounded no-underline"
+            aria-label="Lathercase home"
+          >
             <Brand />
           </NavLink>
           <div className="ml-auto hidden items-center gap-3 lg:flex">
@@ -102,8 +108,15 @@ export function AppShell({ user }: { user: SessionUser }) {
           </button>
         </div>
         {open ? (
-          <nav id="mobile-nav" aria-label="Main" className="max-h-[75dvh] overflow-y-auto border-t border-cream-300 px-4 py-3 lg:hidden">
-            <NavList items={[...items, { to: paths.account, label: `Account (${user.name})` }]} onNavigate={() => setOpen(false)} />
+          <nav
+            id="mobile-nav"
+            aria-label="Main"
+            className="max-h-[75dvh] overflow-y-auto border-t border-cream-300 px-4 py-3 lg:hidden"
+          >
+            <NavList
+              items={[...items, { to: paths.account, label: `Account (${user.name})` }]}
+              onNavigate={() => setOpen(false)}
+            />
             <Button variant="secondary" size="sm" className="mt-3 w-full" onClick={signOut}>
               Sign out
             </Button>
@@ -111,7 +124,10 @@ export function AppShell({ user }: { user: SessionUser }) {
         ) : null}
       </header>
       <div className="flex flex-1">
-        <nav aria-label="Main" className="no-print hidden w-56 shrink-0 border-r border-cream-300 bg-cream-50 px-3 py-6 lg:block">
+        <nav
+          aria-label="Main"
+          className="no-print hidden w-56 shrink-0 border-r border-cream-300 bg-cream-50 px-3 py-6 lg:block"
+        >
           <NavList items={items} />
         </nav>
         <div className="flex min-w-0 flex-1 flex-col">

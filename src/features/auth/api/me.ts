@@ -14,7 +14,8 @@ export async function fetchMe(): Promise<SessionUser | null> {
   }
 }
 
-export const meQueryOptions = () => queryOptions({ queryKey: authKeys.me(), queryFn: fetchMe, staleTime: 5 * 60_000 })
+export const meQueryOptions = () =>
+  queryOptions({ queryKey: authKeys.me(), queryFn: fetchMe, staleTime: 5 * 60_000 })
 
 export function useMe() {
   return useQuery(meQueryOptions())

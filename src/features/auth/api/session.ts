@@ -1,5 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query'
-import type { LoginInput, PasswordResetRequestInput, SessionUser, SetPasswordInput } from '@shared/schemas/auth'
+import type {
+  LoginInput,
+  PasswordResetRequestInput,
+  SessionUser,
+  SetPasswordInput,
+} from '@shared/schemas/auth'
 import { api, setCsrfToken } from '@/lib/api-client'
 import { authKeys } from '@/features/auth/api/me'
 
@@ -8,7 +13,11 @@ export function useLogin() {
   return useMutation({
     meta: { handlesError: true },
     mutationFn: (input: LoginInput) =>
-      api<{ user: SessionUser; csrfToken: string }>('/auth/login', { method: 'POST', body: input, allowUnauthorized: true }),
+      api<{ user: SessionUser; csrfToken: string }>('/auth/login', {
+        method: 'POST',
+        body: input,
+        allowUnauthorized: true,
+      }),
     onSuccess: (data) => {
       setCsrfToken(data.csrfToken)
       qc.clear()
@@ -32,7 +41,8 @@ export function useLogout() {
 export function useRequestPasswordReset() {
   return useMutation({
     meta: { handlesError: true },
-    mutationFn: (input: PasswordResetRequestInput) => api<void>('/auth/password-reset', { method: 'POST', body: input }),
+    mutationFn: (input: PasswordResetRequestInput) =>
+      api<void>('/auth/password-reset', { method: 'POST', body: input }),
   })
 }
 

@@ -13,7 +13,10 @@ export function ForgotPasswordForm() {
   const request = useRequestPasswordReset()
   const [sentTo, setSentTo] = useState<string | null>(null)
   const [formError, setFormError] = useState<string | null>(null)
-  const form = useForm<PasswordResetRequestInput>({ resolver: zodResolver(PasswordResetRequestSchema), defaultValues: { email: '' } })
+  const form = useForm<PasswordResetRequestInput>({
+    resolver: zodResolver(PasswordResetRequestSchema),
+    defaultValues: { email: '' },
+  })
 
   const submit = form.handleSubmit(async (values) => {
     setFormError(null)
@@ -28,8 +31,8 @@ export function ForgotPasswordForm() {
   if (sentTo) {
     return (
       <div role="status" className="rounded-md bg-olive-50 p-4 text-sm text-olive-900">
-        If <strong>{sentTo}</strong> belongs to an account, a link to choose a new password is on its way. It works once,
-        for one hour.
+        If <strong>{sentTo}</strong> belongs to an account, a link to choose a new password is on its way. It
+        works once, for one hour.
       </div>
     )
   }

@@ -11,10 +11,21 @@ import { applyApiErrors } from '@/lib/form-errors'
 
 type Values = z.infer<typeof SetPasswordFormSchema>
 
-export function SetPasswordForm({ token, email, onDone }: { token: string; email: string; onDone: () => void }) {
+export function SetPasswordForm({
+  token,
+  email,
+  onDone,
+}: {
+  token: string
+  email: string
+  onDone: () => void
+}) {
   const setPassword = useSetPassword()
   const [formError, setFormError] = useState<string | null>(null)
-  const form = useForm<Values>({ resolver: zodResolver(SetPasswordFormSchema), defaultValues: { password: '', confirm: '' } })
+  const form = useForm<Values>({
+    resolver: zodResolver(SetPasswordFormSchema),
+    defaultValues: { password: '', confirm: '' },
+  })
   const { errors } = form.formState
 
   const submit = form.handleSubmit(async ({ password }) => {
@@ -31,7 +42,11 @@ export function SetPasswordForm({ token, email, onDone }: { token: string; email
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
       {formError ? <FormError message={formError} /> : null}
       <input type="email" value={email} autoComplete="username" readOnly hidden />
-      <Field label="New password" hint="At least 10 characters. A short sentence works well." error={errors.password?.message}>
+      <Field
+        label="New password"
+        hint="At least 10 characters. A short sentence works well."
+        error={errors.password?.message}
+      >
         <Input type="password" autoComplete="new-password" autoFocus {...form.register('password')} />
       </Field>
       <Field label="Type it again" error={errors.confirm?.message}>

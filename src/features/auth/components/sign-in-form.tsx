@@ -14,7 +14,10 @@ import { applyApiErrors } from '@/lib/form-errors'
 export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => void }) {
   const login = useLogin()
   const [formError, setFormError] = useState<string | null>(null)
-  const form = useForm<LoginInput>({ resolver: zodResolver(LoginSchema), defaultValues: { email: '', password: '' } })
+  const form = useForm<LoginInput>({
+    resolver: zodResolver(LoginSchema),
+    defaultValues: { email: '', password: '' },
+  })
   const { errors } = form.formState
 
   const submit = form.handleSubmit(async (values) => {

@@ -20,16 +20,23 @@ export const studioProfileQuery = () =>
 export const useStudioProfile = () => useQuery(studioProfileQuery())
 
 export const useSettings = () =>
-  useQuery({ queryKey: studioKeys.settings(), queryFn: async () => (await api<{ settings: Settings }>('/settings')).settings })
+  useQuery({
+    queryKey: studioKeys.settings(),
+    queryFn: async () => (await api<{ settings: Settings }>('/settings')).settings,
+  })
 
 export const useShops = () =>
-  useQuery({ queryKey: studioKeys.shops(), queryFn: async () => (await api<{ items: ShopSummary[] }>('/shops')).items })
+  useQuery({
+    queryKey: studioKeys.shops(),
+    queryFn: async () => (await api<{ items: ShopSummary[] }>('/shops')).items,
+  })
 
 export function useSaveStudioProfile() {
   const qc = useQueryClient()
   return useMutation({
     meta: { handlesError: true },
-    mutationFn: (input: StudioProfileInput) => api<{ settings: Settings }>('/settings/studio', { method: 'PUT', body: input }),
+    mutationFn: (input: StudioProfileInput) =>
+      api<{ settings: Settings }>('/settings/studio', { method: 'PUT', body: input }),
     onSuccess: () => qc.invalidateQueries({ queryKey: studioKeys.all }),
   })
 }

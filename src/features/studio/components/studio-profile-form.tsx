@@ -28,7 +28,10 @@ export function StudioProfileForm({ studio }: { studio: Settings['studio'] }) {
 
   const submit = form.handleSubmit(async ({ addressText, ...rest }) => {
     setFormError(null)
-    const address = addressText.split('\n').map((l) => l.trim()).filter(Boolean)
+    const address = addressText
+      .split('\n')
+      .map((l) => l.trim())
+      .filter(Boolean)
     const parsed = StudioProfileSchema.safeParse({ ...rest, address })
     if (!parsed.success) {
       form.setError('addressText', { message: parsed.error.issues[0]?.message ?? 'Check the address.' })
@@ -57,7 +60,12 @@ export function StudioProfileForm({ studio }: { studio: Settings['studio'] }) {
       <Field label="Phone" optional error={errors.phone?.message}>
         <Input type="tel" {...form.register('phone')} />
       </Field>
-      <Field label="Address" hint="One line per row, up to five." error={errors.addressText?.message} className="sm:col-span-2">
+      <Field
+        label="Address"
+        hint="One line per row, up to five."
+        error={errors.addressText?.message}
+        className="sm:col-span-2"
+      >
         <Textarea rows={4} {...form.register('addressText')} />
       </Field>
       <Field label="Tax ID" optional error={errors.taxId?.message}>

@@ -5,7 +5,10 @@ import { api } from '@/lib/api-client'
 export const userKeys = { all: ['users'] as const, list: () => [...userKeys.all, 'list'] as const }
 
 export const useUsers = () =>
-  useQuery({ queryKey: userKeys.list(), queryFn: async () => (await api<{ items: UserRow[] }>('/users')).items })
+  useQuery({
+    queryKey: userKeys.list(),
+    queryFn: async () => (await api<{ items: UserRow[] }>('/users')).items,
+  })
 
 export function useInviteUser() {
   const qc = useQueryClient()

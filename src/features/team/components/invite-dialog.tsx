@@ -16,7 +16,15 @@ import { applyApiErrors } from '@/lib/form-errors'
 
 type FormIn = z.input<typeof InviteUserSchema>
 
-export function InviteDialog({ open, onClose, shops }: { open: boolean; onClose: () => void; shops: ShopSummary[] }) {
+export function InviteDialog({
+  open,
+  onClose,
+  shops,
+}: {
+  open: boolean
+  onClose: () => void
+  shops: ShopSummary[]
+}) {
   const invite = useInviteUser()
   const [formError, setFormError] = useState<string | null>(null)
   const form = useForm<FormIn, unknown, InviteUserInput>({

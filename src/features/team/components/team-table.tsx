@@ -54,7 +54,11 @@ export function TeamTable({ users, selfId }: { users: UserRow[]; selfId: number 
                   <Button
                     size="sm"
                     variant="ghost"
-                    onClick={() => resend.mutate(u.id, { onSuccess: () => toast.success(`Invitation sent again to ${u.email}.`) })}
+                    onClick={() =>
+                      resend.mutate(u.id, {
+                        onSuccess: () => toast.success(`Invitation sent again to ${u.email}.`),
+                      })
+                    }
                   >
                     Resend invite
                   </Button>
@@ -72,11 +76,19 @@ export function TeamTable({ users, selfId }: { users: UserRow[]; selfId: number 
 
   return (
     <>
-      <DataTable label="Team and buyers" columns={columns} data={users} getRowId={(u) => String(u.id)} searchable />
+      <DataTable
+        label="Team and buyers"
+        columns={columns}
+        data={users}
+        getRowId={(u) => String(u.id)}
+        searchable
+      />
       <ConfirmDialog
         open={confirming !== null}
         onClose={() => setConfirming(null)}
-        title={confirming?.active ? `Deactivate ${confirming.name}?` : `Reactivate ${confirming?.name ?? ''}?`}
+        title={
+          confirming?.active ? `Deactivate ${confirming.name}?` : `Reactivate ${confirming?.name ?? ''}?`
+        }
         message={
           confirming?.active
             ? 'They are signed out at once and can no longer sign in. Their history stays.'
@@ -87,7 +99,11 @@ export function TeamTable({ users, selfId }: { users: UserRow[]; selfId: number 
         onConfirm={async () => {
           if (!confirming) return
           await update.mutateAsync({ id: confirming.id, active: !confirming.active })
-          toast.success(confirming.active ? `${confirming.name} is deactivated.` : `${confirming.name} can sign in again.`)
+          toast.success(
+            confirming.active
+              ? `${confirming.name} is deactivated.`
+              : `${confirming.name} can sign in again.`,
+          )
         }}
       />
     </>
