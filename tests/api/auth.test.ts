@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { createApp } from '@server/app'
+import { sequelize } from '@server/db/sequelize'
 import { ApiClient, DEMO, clientAs } from '@tests/factories/api-client'
 import { linkIn, waitForMail } from '@tests/factories/mail'
 
@@ -126,6 +127,22 @@ describe('password reset by e-mail', () => {
     await c.login(DEMO.buyerC.email, 'a-brand-new-password')
     const old = await new ApiClient(app).post('/api/auth/login', DEMO.buyerC)
     expect(old.status).toBe(401)
+  })
+
+  it('a link older than its hour no longer works', async () => {
+    const c = new ApiClient(app)
+    await c.post('/api/auth/password-reset', { email: DEMO.packer.email })
+    const mail = await waitForMail(DEMO.packer.email, /Reset your/)
+    const token = new URL(linkIn(mail, 'http://127.0.0.1:3999/set-password?token=')).searchParams.get('token')!
+    await sequelize.query(
+      "UPDATE auth_tokens SET expires_at = now() - interval '1 second' WHERE token_hash = encode(sha256($1::bytea), 'hex')",
+      { bind: [token] },
+    )
+    expect((await c.get(`/api/auth/tokens/${token}`)).status).toBe(400)
+    const r = await c.post('/api/auth/set-password', { token, password: 'too-late-for-this' })
+    expect(r.status).toBe(400)
+    expect(r.body.error.details[0].field).toBe('token')
+    await c.login(DEMO.packer.email, DEMO.packer.password)
   })
 
   it('answers 204 for an unknown address too, and refuses a short password', async () => {
