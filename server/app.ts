@@ -9,11 +9,29 @@ import { env } from '@server/config/env'
 import { pool } from '@server/db/sequelize'
 import { csrfProtection } from '@server/middlewares/csrf'
 import { errorHandler, notFound } from '@server/middlewares/error-handler'
+import { applicationsRoutes } from '@server/modules/applications/applications.routes'
+import type { ApplicationLimits } from '@server/modules/applications/applications.routes'
 import { authRoutes } from '@server/modules/auth/auth.routes'
+import { batchesRoutes } from '@server/modules/batches/batches.routes'
 import { createPassport } from '@server/modules/auth/passport'
+import { batchSheetRoutes } from '@server/modules/batch-sheet/batch-sheet.routes'
+import { cartRoutes } from '@server/modules/cart/cart.routes'
+import { catalogueRoutes } from '@server/modules/catalogue/catalogue.routes'
 import { healthRoutes } from '@server/modules/health/health.routes'
+import { ingredientsRoutes } from '@server/modules/ingredients/ingredients.routes'
+import { invoicesRoutes } from '@server/modules/invoices/invoices.routes'
+import { ordersCsvRoutes, ordersRoutes } from '@server/modules/orders/orders.routes'
+import { packingRoutes } from '@server/modules/packing/packing.routes'
+import { paymentsRoutes } from '@server/modules/payments/payments.routes'
+import { priceTiersRoutes } from '@server/modules/price-tiers/price-tiers.routes'
+import { pricingRoutes } from '@server/modules/pricing/pricing.routes'
+import { purchasesRoutes } from '@server/modules/purchases/purchases.routes'
+import { productsRoutes } from '@server/modules/products/products.routes'
+import { recipesRoutes } from '@server/modules/recipes/recipes.routes'
 import { settingsRoutes, studioRoutes } from '@server/modules/settings/settings.routes'
+import { shipmentsRoutes } from '@server/modules/shipments/shipments.routes'
 import { shopsRoutes } from '@server/modules/shops/shops.routes'
+import { traceRoutes } from '@server/modules/trace/trace.routes'
 import { usersRoutes } from '@server/modules/users/users.routes'
 import '@server/db/associations'
 
@@ -25,6 +43,8 @@ export type AppOptions = {
   serveClient?: boolean
   /** Delete expired sessions every 15 minutes; off in tests so no timer outlives them. */
   pruneSessions?: boolean
+  /** Throttle of the public wholesale application per IP address (defaults: 5 accepted, 30 attempts an hour). */
+  applicationLimits?: ApplicationLimits
 }
 
 /** Builds the Express app without listening (tests import it). */
@@ -62,6 +82,8 @@ export function createApp(opts: AppOptions = {}) {
     res.set('Cache-Control', 'no-store')
     next()
   })
+  // A pasted purchases CSV may be up to 1 MB (more once JSON-escaped); every other body stays small.
+  api.use('/purchases/import', express.json({ limit: '2mb' }))
   api.use(express.json({ limit: '256kb' }))
   api.use(
     session({
@@ -87,8 +109,26 @@ export function createApp(opts: AppOptions = {}) {
   api.use('/auth', authRoutes(passport))
   api.use('/users', usersRoutes())
   api.use('/shops', shopsRoutes())
+  api.use('/applications', applicationsRoutes(opts.applicationLimits))
   api.use('/settings', settingsRoutes())
   api.use('/studio', studioRoutes())
+  api.use('/products', productsRoutes())
+  api.use('/price-tiers', priceTiersRoutes())
+  api.use('/pricing', pricingRoutes())
+  api.use('/recipes', recipesRoutes())
+  api.use(batchSheetRoutes()) // /batch-sheet and /recipes/:id/batch-sheet(.pdf)
+  api.use('/batches', batchesRoutes())
+  api.use('/trace', traceRoutes())
+  api.use('/ingredients', ingredientsRoutes())
+  api.use('/purchases', purchasesRoutes())
+  api.use(packingRoutes()) // /packing/*, /pick-list(.pdf), /orders/:id/{claim,packed,packing-slip.pdf}
+  api.use(shipmentsRoutes()) // /orders/:id/ship
+  api.use(invoicesRoutes()) // /invoices(.csv), /invoices/:id/*, /orders/:id/invoice
+  api.use(paymentsRoutes()) // /invoices/:id/{payments,remind}, /payments(.csv), /receivables
+  api.use('/catalogue', catalogueRoutes())
+  api.use('/cart', cartRoutes())
+  api.use('/orders.csv', ordersCsvRoutes())
+  api.use('/orders', ordersRoutes())
   api.use(notFound)
   app.use('/api', api)
 

@@ -4,6 +4,8 @@ import { closeDb, sequelize } from '@server/db/sequelize'
 import { migrate } from '@server/db/migrator'
 import { createApp } from '@server/app'
 import { logger } from '@server/lib/logger'
+import { startReminderJob } from '@server/modules/payments/reminders.job'
+import { schedulePreorderAllocation } from '@server/modules/orders/preorders.service'
 
 /** Runs the API and the built client on one port. Migrations run first; demo data is the start script's job. */
 async function main() {
@@ -15,12 +17,18 @@ async function main() {
   await new Promise<void>((resolve) => server.listen(env.PORT, env.HOST, resolve))
   logger.info('listening', { url: env.APP_URL })
   if (process.send) process.send({ type: 'listening', port: env.PORT })
+  // The daily overdue-invoice reminders (off with JOBS=false, as in tests, which call the job themselves).
+  const stopReminders = env.JOBS ? startReminderJob() : () => {}
+  // Pre-orders get their bars the day their batch is ready: now, then once each studio day.
+  const stopPreorders = env.JOBS ? schedulePreorderAllocation() : () => {}
 
   let stopping = false
   const stop = (signal: string) => {
     if (stopping) return
     stopping = true
     logger.info('stopping', { signal })
+    stopReminders()
+    stopPreorders()
     server.close(() => void closeDb().then(() => process.exit(0)))
     server.closeAllConnections()
     setTimeout(() => process.exit(0), 5000).unref()

@@ -187,7 +187,7 @@ const base = {
   superfatPct: 5,
   lyeConcentrationPct: 33,
   cureDays: 28,
-  labourMinutes: 90,
+  labourMinutes: 20,
   barWeightG: 130,
   barsPerMould: 12,
   barsKeptBack: 2,

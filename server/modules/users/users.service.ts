@@ -1,4 +1,5 @@
 import { QueryTypes } from 'sequelize'
+import type { Transaction } from 'sequelize'
 import type { InviteUserInput, UpdateUserInput, UserRow } from '@shared/schemas/users'
 import { sequelize } from '@server/db/sequelize'
 import { AppError } from '@server/lib/app-error'
@@ -20,14 +21,17 @@ type Row = {
   last_login_at: Date | null
 }
 
-export async function listUsers(filter: { shopId?: number } = {}): Promise<UserRow[]> {
+export async function listUsers(
+  filter: { shopId?: number } = {},
+  transaction?: Transaction,
+): Promise<UserRow[]> {
   const rows = await sequelize.query<Row>(
     `SELECT u.id, u.email, u.name, u.role, u.shop_id, s.trading_name AS shop_name, u.active,
             (u.password_hash IS NOT NULL) AS has_password, u.last_login_at
        FROM users u LEFT JOIN shops s ON s.id = u.shop_id
       WHERE ($1::int IS NULL OR u.shop_id = $1)
       ORDER BY CASE u.role WHEN 'owner' THEN 0 WHEN 'packer' THEN 1 ELSE 2 END, s.trading_name NULLS FIRST, u.name`,
-    { bind: [filter.shopId ?? null], type: QueryTypes.SELECT },
+    { bind: [filter.shopId ?? null], type: QueryTypes.SELECT, transaction },
   )
   return rows.map((r) => ({
     id: r.id,
@@ -42,16 +46,24 @@ export async function listUsers(filter: { shopId?: number } = {}): Promise<UserR
   }))
 }
 
-async function rowOf(id: number) {
-  const row = (await listUsers()).find((u) => u.id === id)
+async function rowOf(id: number, transaction?: Transaction) {
+  const row = (await listUsers({}, transaction)).find((u) => u.id === id)
   if (!row) throw AppError.notFound('That person')
   return row
 }
 
-/** Creates the user without a password and e-mails a set-password link. */
-export async function inviteUser(input: InviteUserInput, byUserId: number): Promise<UserRow> {
+/**
+ * Creates the user without a password and e-mails a set-password link. Inside a caller's
+ * transaction (opening a shop account together with its first buyer) the user is created in it
+ * and the e-mail goes out only once that transaction commits.
+ */
+export async function inviteUser(
+  input: InviteUserInput,
+  byUserId: number,
+  opts: { transaction?: Transaction } = {},
+): Promise<UserRow> {
   const shopId = input.role === 'buyer' ? (input.shopId ?? null) : null
-  const mail = await sequelize.transaction(async (t) => {
+  const create = async (t: Transaction) => {
     if (await User.findOne({ where: { email: input.email }, transaction: t })) {
       throw AppError.field(
         'email',
@@ -88,7 +100,16 @@ export async function inviteUser(input: InviteUserInput, byUserId: number): Prom
       t,
     )
     return { id: user.id, mail: await sendInvitation(user, t) }
-  })
+  }
+  const outer = opts.transaction
+  if (outer) {
+    const made = await create(outer)
+    outer.afterCommit(async () => {
+      await sendMail(made.mail)
+    })
+    return rowOf(made.id, outer)
+  }
+  const mail = await sequelize.transaction(create)
   await sendMail(mail.mail)
   return rowOf(mail.id)
 }

@@ -1,4 +1,5 @@
 import { useMemo } from 'react'
+import { Link } from 'react-router-dom'
 import { formatDate } from '@shared/domain/dates/dates'
 import { PAYMENT_TERMS_LABELS, SHOP_STATUS_LABELS } from '@shared/schemas/shops'
 import type { ShopSummary } from '@shared/schemas/shops'
@@ -11,7 +12,8 @@ import { LoadingBlock } from '@/components/ui/spinner'
 import { Stat } from '@/components/ui/stat'
 import { paths } from '@/config/paths'
 import { useMe } from '@/features/auth/api/me'
-import { useShops, useStudioProfile } from '@/features/studio/api/studio'
+import { useShopAccounts } from '@/features/shops/api/accounts'
+import { useStudioProfile } from '@/features/studio/api/studio'
 import { useUsers } from '@/features/team/api/users'
 
 const col = dataTableColumnHelper<ShopSummary>()
@@ -41,7 +43,7 @@ const columns = col.columns([
 export function Component() {
   const me = useMe()
   const studio = useStudioProfile()
-  const shops = useShops()
+  const shops = useShopAccounts()
   const users = useUsers()
   const counts = useMemo(() => {
     const list = shops.data ?? []
@@ -62,7 +64,17 @@ export function Component() {
       />
       <div className="mb-6 grid grid-cols-2 gap-4 lg:grid-cols-4">
         <Stat label="Active shop accounts" value={shops.isPending ? '…' : counts.active} />
-        <Stat label="Applications waiting" value={shops.isPending ? '…' : counts.applied} tone={counts.applied ? 'honey' : 'default'} />
+        <Link
+          to={`${paths.owner.accounts}?status=applied`}
+          className="rounded-card no-underline hover:opacity-90"
+        >
+          <Stat
+            label="Applications waiting"
+            value={shops.isPending ? '…' : counts.applied}
+            hint="Open to review them"
+            tone={counts.applied ? 'honey' : 'default'}
+          />
+        </Link>
         <Stat label="Accounts on hold" value={shops.isPending ? '…' : counts.held} />
         <Stat label="Studio staff" value={users.isPending ? '…' : staff} />
       </div>
@@ -77,6 +89,7 @@ export function Component() {
               columns={columns}
               data={shops.data ?? []}
               getRowId={(s) => String(s.id)}
+              rowHref={(s) => paths.owner.account(s.id)}
               searchable
               emptyMessage="No shop accounts yet. Accounts appear here when a shop applies or you invite a buyer."
             />

@@ -1,7 +1,7 @@
-import { Navigate, useNavigate, useSearchParams } from 'react-router-dom'
+import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom'
 import { AuthLayout } from '@/components/layout/auth-layout'
 import { LoadingBlock } from '@/components/ui/spinner'
-import { homeFor } from '@/config/paths'
+import { homeFor, paths } from '@/config/paths'
 import { useMe } from '@/features/auth/api/me'
 import { SignInForm } from '@/features/auth/components/sign-in-form'
 
@@ -20,6 +20,12 @@ export function Component() {
   return (
     <AuthLayout title="Sign in" intro="Studio staff and shop buyers sign in here.">
       <SignInForm onSignedIn={(u) => navigate(next ?? homeFor[u.role], { replace: true })} />
+      <p className="mt-5 border-t border-cream-200 pt-4 text-center text-sm text-ink-700">
+        Not a stockist yet?{' '}
+        <Link to={paths.apply} className="font-medium text-olive-800 underline hover:text-olive-900">
+          Apply for a wholesale account
+        </Link>
+      </p>
     </AuthLayout>
   )
 }

@@ -1,0 +1,125 @@
+import { QueryTypes } from 'sequelize'
+import {
+  orderCancelledEmail,
+  orderConfirmedEmail,
+  orderPlacedEmail,
+  orderPlacedStudioEmail,
+  preorderAllocatedEmail,
+} from '@templates/email/orders'
+import type { Email } from '@templates/email/layout'
+import { env } from '@server/config/env'
+import { sequelize } from '@server/db/sequelize'
+import { logger } from '@server/lib/logger'
+import { sendMail } from '@server/lib/mailer'
+import { findOrder } from '@server/modules/orders/order-queries'
+import { getSettings } from '@server/modules/settings/settings.service'
+
+// Order e-mails go out after the transaction that changed the order has committed, so nobody is
+// told about an order that was rolled back. A mail that fails is logged by the mailer, never thrown.
+
+type Recipient = { email: string; name: string }
+
+const buyerLink = (id: number) => `${env.APP_URL}/shop/orders/${id}`
+const studioLink = (id: number) => `${env.APP_URL}/studio/orders/${id}`
+
+/** The buyer who placed the order (while active), else the shop's contact. */
+async function buyerOf(orderId: number): Promise<Recipient | null> {
+  const [r] = await sequelize.query<{
+    email: string | null
+    name: string | null
+    contact_email: string
+    contact_name: string
+  }>(
+    `SELECT u.email, u.name, s.contact_email, s.contact_name
+       FROM orders o JOIN shops s ON s.id = o.shop_id
+       LEFT JOIN users u ON u.id = o.placed_by AND u.active
+      WHERE o.id = $1`,
+    { bind: [orderId], type: QueryTypes.SELECT },
+  )
+  if (!r) return null
+  return r.email ? { email: r.email, name: r.name! } : { email: r.contact_email, name: r.contact_name }
+}
+
+async function owners(): Promise<Recipient[]> {
+  return sequelize.query<Recipient>(
+    `SELECT email, name FROM users WHERE role = 'owner' AND active ORDER BY id`,
+    {
+      type: QueryTypes.SELECT,
+    },
+  )
+}
+
+async function context(orderId: number) {
+  const order = await findOrder(orderId, { role: 'owner', shopId: null })
+  const settings = await getSettings()
+  return order ? { order, studioName: settings.studio.name, currency: settings.currency } : null
+}
+
+async function send(to: Recipient | null, mail: Email) {
+  if (to) await sendMail({ to: to.email, ...mail })
+}
+
+export type OrderMail =
+  | { kind: 'placed'; orderId: number }
+  | { kind: 'confirmed'; orderId: number }
+  | { kind: 'cancelled'; orderId: number; byStudio: boolean }
+  | { kind: 'preorder_allocated'; orderId: number; lineIds: number[] }
+
+/** Sends one order e-mail (with the order as it now stands) to the people it concerns. */
+export async function sendOrderMail(mail: OrderMail): Promise<void> {
+  const ctx = await context(mail.orderId)
+  if (!ctx) return
+  const { order, studioName, currency } = ctx
+  const buyer = await buyerOf(order.id)
+  const forBuyer = (to: Recipient | null) =>
+    to ? { studioName, currency, order, name: to.name, link: buyerLink(order.id) } : null
+  const forStudio = (to: Recipient) => ({
+    studioName,
+    currency,
+    order,
+    name: to.name,
+    link: studioLink(order.id),
+  })
+  const b = forBuyer(buyer)
+  switch (mail.kind) {
+    case 'placed': {
+      const jobs: Promise<void>[] = b ? [send(buyer, orderPlacedEmail(b))] : []
+      for (const owner of await owners()) jobs.push(send(owner, orderPlacedStudioEmail(forStudio(owner))))
+      await Promise.all(jobs)
+      return
+    }
+    case 'confirmed':
+      if (b) await send(buyer, orderConfirmedEmail(b))
+      return
+    case 'cancelled': {
+      const jobs: Promise<void>[] = b
+        ? [send(buyer, orderCancelledEmail({ ...b, byStudio: mail.byStudio }))]
+        : []
+      // When the shop cancels, the studio hears of it too.
+      if (!mail.byStudio) {
+        for (const owner of await owners()) {
+          jobs.push(send(owner, orderCancelledEmail({ ...forStudio(owner), byStudio: false })))
+        }
+      }
+      await Promise.all(jobs)
+      return
+    }
+    case 'preorder_allocated':
+      if (b) await send(buyer, preorderAllocatedEmail({ ...b, lineIds: new Set(mail.lineIds) }))
+      return
+  }
+}
+
+export async function sendOrderMails(mails: OrderMail[]): Promise<void> {
+  for (const m of mails) await sendOrderMail(m)
+}
+
+/**
+ * Sends the mails without holding up the answer to the person who acted (a message takes a
+ * round trip to the mail relay). Failures are logged, never thrown.
+ */
+export function sendOrderMailsLater(mails: OrderMail[]): void {
+  void sendOrderMails(mails).catch((err: unknown) => {
+    logger.warn('order mail not sent', { error: err instanceof Error ? err.message : String(err) })
+  })
+}

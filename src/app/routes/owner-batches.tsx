@@ -1,0 +1,18 @@
+import { LinkButton } from '@/components/ui/button'
+import { PageHeader } from '@/components/ui/page-header'
+import { paths } from '@/config/paths'
+import { CuringScreen } from '@/features/batches/components/curing-screen'
+
+export function Component() {
+  const record = <LinkButton to={paths.owner.batchNew}>Record a batch</LinkButton>
+  return (
+    <>
+      <PageHeader
+        title="Batches"
+        description="What is curing, what is ready to sell, and what has run out. A batch turns ready on its ready date by itself."
+        actions={record}
+      />
+      <CuringScreen showCosts batchHref={paths.owner.batch} emptyAction={record} />
+    </>
+  )
+}

@@ -1,0 +1,88 @@
+import { useMemo } from 'react'
+import type { ReactNode } from 'react'
+import { formatDate } from '@shared/domain/dates/dates'
+import type { InvoiceListItem } from '@shared/schemas/invoices'
+import { buttonClasses } from '@/components/ui/button'
+import { DataTable, dataTableColumnHelper } from '@/components/ui/data-table'
+import { Money } from '@/components/ui/money'
+import { invoicePdfHref } from '@/features/invoices/api/invoices'
+import { InvoiceStatusBadge } from '@/features/invoices/components/invoice-status-badge'
+
+const col = dataTableColumnHelper<InvoiceListItem>()
+
+type Props = {
+  items: InvoiceListItem[]
+  /** The owner's list names the shop; a buyer's does not need to. */
+  showShop?: boolean
+  /** Each row's PDF as a download (the buyer's list). */
+  withPdf?: boolean
+  rowHref?: (invoice: InvoiceListItem) => string
+  toolbar?: ReactNode
+  emptyMessage?: ReactNode
+}
+
+/** Invoices and credit notes: number, dates, status, and what was billed, paid and is still due. */
+export function InvoicesTable({ items, showShop = false, withPdf = false, rowHref, toolbar, emptyMessage }: Props) {
+  const columns = useMemo(
+    () =>
+      col.columns([
+        col.accessor('number', {
+          header: 'Number',
+          cell: (c) => (
+            <span className="font-mono">
+              {c.getValue()}
+              {c.row.original.kind === 'credit_note' ? <span className="sr-only"> (credit note)</span> : null}
+            </span>
+          ),
+        }),
+        ...(showShop ? [col.accessor('shopName', { header: 'Shop', meta: { wrap: true } })] : []),
+        col.accessor('orderNumber', { header: 'Order' }),
+        col.accessor('issueDate', { header: 'Issued', cell: (c) => formatDate(c.getValue()) }),
+        col.accessor('dueDate', {
+          header: 'Due',
+          cell: (c) => (c.row.original.kind === 'credit_note' ? '—' : formatDate(c.getValue())),
+        }),
+        col.accessor('status', { header: 'Status', cell: (c) => <InvoiceStatusBadge status={c.getValue()} /> }),
+        col.accessor('totalCents', { header: 'Total', meta: { align: 'end' }, cell: (c) => <Money cents={c.getValue()} /> }),
+        col.accessor('paidCents', { header: 'Paid', meta: { align: 'end' }, cell: (c) => <Money cents={c.getValue()} /> }),
+        col.accessor('outstandingCents', {
+          header: 'Due now',
+          meta: { align: 'end' },
+          cell: (c) => <Money cents={c.getValue()} className={c.getValue() > 0 ? 'font-medium text-ink-900' : 'text-ink-600'} />,
+        }),
+        ...(withPdf
+          ? [
+              col.display({
+                id: 'pdf',
+                header: 'PDF',
+                cell: (c) => (
+                  <a
+                    href={invoicePdfHref(c.row.original.id)}
+                    download
+                    className={buttonClasses('secondary', 'sm')}
+                    aria-label={`Download ${c.row.original.kind === 'credit_note' ? 'credit note' : 'invoice'} ${c.row.original.number} (PDF)`}
+                  >
+                    Download
+                  </a>
+                ),
+              }),
+            ]
+          : []),
+      ]),
+    [showShop, withPdf],
+  )
+  return (
+    <DataTable
+      label="Invoices"
+      columns={columns}
+      data={items}
+      getRowId={(i) => String(i.id)}
+      rowHref={rowHref}
+      searchable
+      searchPlaceholder="Number, shop, order…"
+      toolbar={toolbar}
+      emptyMessage={emptyMessage}
+      paginate
+    />
+  )
+}
