@@ -15,7 +15,7 @@ import { DEMO_STAFF } from './demo/scenario'
  * Supplies are the purchases of 0002 (one box and one label per bar, 5 kg of shea butter), so the
  * moulds per batch are chosen to fit them with some left for new pours.
  */
-type Pour = {
+export type DemoPour = {
   sku: string
   /** Days before the seed runs. */
   pouredDaysAgo: number
@@ -27,7 +27,7 @@ type Pour = {
 }
 
 // In pour order, oldest first, so the oldest lots go to the oldest batches.
-const POURS: Pour[] = [
+export const DEMO_POURS: DemoPour[] = [
   { sku: 'ORP', pouredDaysAgo: 68, moulds: 3, location: 'Rack A, shelf 1' },
   { sku: 'LAV', pouredDaysAgo: 64, moulds: 3, location: 'Rack A, shelf 2' },
   { sku: 'CDR', pouredDaysAgo: 61, moulds: 3, location: 'Rack A, shelf 3' },
@@ -107,7 +107,7 @@ export const up: Migration = async ({ context: { sequelize } }) => {
     )
     const bySku = new Map(products.map((p) => [p.sku, p]))
 
-    for (const plan of POURS) {
+    for (const plan of DEMO_POURS) {
       const product = bySku.get(plan.sku)
       if (!product) throw new Error(`Seeding batches: no product with SKU ${plan.sku} (seeded by 0004).`)
       // Nothing is poured before its ingredients arrived: a seed run soon after the demo

@@ -8,10 +8,11 @@ import { DEMO_SHOPS, DEMO_STAFF } from './demo/scenario'
  * before it left), one packed and waiting for the carrier, one on the bench (claimed by the demo
  * packer), one confirmed, one just placed, and one cancelled.
  *
- * The bars come from five earlier pours of this seeder (60–100 days back), sized to exactly what
- * these orders take, so the ready stock of the batches seeder (0005) is left as it was for the
- * other demo stories. The supplies those pours take arrive as a delivery a week before each pour,
- * so the studio's supplies on hand are as the purchases seeder left them. Everything goes through the real services: pours through the batches service,
+ * The bars come from five earlier pours of this seeder (on racks D and E, 70–73 days back), sized
+ * to exactly what these orders take, so the ready stock of the batches seeder (0005) is left as it
+ * was for the other demo stories. A supply those pours would mostly use up (shea butter, the
+ * essential oils…) is bought again a week before the pour, so the studio keeps enough for its
+ * next pours. Everything goes through the real services: pours through the batches service,
  * orders through placement, confirmation and cancellation, then claiming, packing, shipping (which
  * raises the invoices with their gapless numbers) and payments. The services stamp their rows with
  * the time they run; the dates of the story are then moved back with plain SQL.
@@ -45,19 +46,34 @@ type DemoOrder = {
 // 2 The Quiet Kettle (Distributor, net 15).
 const ORDERS: DemoOrder[] = [
   {
+    // Net 30, issued 44 days ago and still unpaid: overdue.
     shop: 0,
     po: 'JV-24117',
+    lines: [
+      { sku: 'CHR', cases: 2 },
+      { sku: 'LAV', cases: 1 },
+    ],
+    placed: 45,
+    confirmed: 45,
+    packing: 44,
+    packed: 44,
+    shipped: 44,
+    carrier: { name: 'UPS', tracking: '1Z4F83E20355129748', cartons: 2, weightG: 5200 },
+  },
+  {
+    shop: 0,
+    po: 'JV-24188',
     lines: [
       { sku: 'LAV', cases: 2 },
       { sku: 'CDR', cases: 1 },
     ],
-    placed: 58,
-    confirmed: 58,
-    packing: 57,
-    packed: 56,
-    shipped: 55,
-    carrier: { name: 'UPS', tracking: '1Z4F83E20355129748', cartons: 2, weightG: 5300 },
-    payments: [{ daysAgo: 27, cents: 'all', method: 'bank_transfer', reference: 'ACH JV 0924' }],
+    placed: 43,
+    confirmed: 42,
+    packing: 42,
+    packed: 41,
+    shipped: 41,
+    carrier: { name: 'UPS', tracking: '1Z4F83E20355188302', cartons: 2, weightG: 5300 },
+    payments: [{ daysAgo: 12, cents: 'all', method: 'bank_transfer', reference: 'ACH JV 1021' }],
   },
   {
     shop: 2,
@@ -66,28 +82,13 @@ const ORDERS: DemoOrder[] = [
       { sku: 'HNY', cases: 2 },
       { sku: 'ORP', cases: 2 },
     ],
-    placed: 50,
-    confirmed: 49,
-    packing: 48,
-    packed: 48,
-    shipped: 47,
+    placed: 36,
+    confirmed: 35,
+    packing: 35,
+    packed: 34,
+    shipped: 34,
     carrier: { name: 'FedEx', tracking: '7712 4409 8831', cartons: 3, weightG: 7050 },
-    payments: [{ daysAgo: 34, cents: 'all', method: 'cheque', reference: 'Cheque 20417' }],
-  },
-  {
-    // Net 30, issued 45 days ago and still unpaid: overdue.
-    shop: 0,
-    po: 'JV-24188',
-    lines: [
-      { sku: 'CHR', cases: 2 },
-      { sku: 'LAV', cases: 1 },
-    ],
-    placed: 48,
-    confirmed: 47,
-    packing: 46,
-    packed: 46,
-    shipped: 45,
-    carrier: { name: 'UPS', tracking: '1Z4F83E20355188302', cartons: 2, weightG: 5200 },
+    payments: [{ daysAgo: 21, cents: 'all', method: 'cheque', reference: 'Cheque 20417' }],
   },
   {
     // Prepay: invoiced at confirmation, paid by card before it shipped.
@@ -180,14 +181,15 @@ const ORDERS: DemoOrder[] = [
   },
 ]
 
-// The earlier pours these orders draw from (oldest ready batch first), each a little ahead of the
-// first order that needs it. Honey oat cures 35 days, the others 28.
+// The earlier pours these orders draw from, each ready by the first order that needs it and
+// before the batches seeder's pour of the same product (allocation takes the oldest ready batch
+// first). Honey oat cures 35 days, the others 28.
 const POURS: { sku: string; daysAgo: number; location: string }[] = [
-  { sku: 'HNY', daysAgo: 100, location: 'Rack D, shelf 1' },
-  { sku: 'LAV', daysAgo: 96, location: 'Rack D, shelf 2' },
-  { sku: 'CDR', daysAgo: 95, location: 'Rack D, shelf 3' },
-  { sku: 'ORP', daysAgo: 93, location: 'Rack E, shelf 1' },
-  { sku: 'CHR', daysAgo: 91, location: 'Rack E, shelf 2' },
+  { sku: 'LAV', daysAgo: 73, location: 'Rack D, shelf 1' },
+  { sku: 'CHR', daysAgo: 73, location: 'Rack D, shelf 2' },
+  { sku: 'CDR', daysAgo: 72, location: 'Rack D, shelf 3' },
+  { sku: 'HNY', daysAgo: 72, location: 'Rack E, shelf 1' },
+  { sku: 'ORP', daysAgo: 70, location: 'Rack E, shelf 2' },
 ]
 
 const ago = (today: string, days: number) => addDays(today, -days)
@@ -256,11 +258,11 @@ export const up: Migration = async ({ context: { sequelize } }) => {
   for (const pour of POURS) {
     const p = product(pour.sku)
     const sellable = barsOf.get(pour.sku) ?? 0
-    const pourDate = ago(today, pour.daysAgo)
     const [recipe] = await q<{ mould_oil_weight_g: string; bars_per_mould: number }>(
       'SELECT r.mould_oil_weight_g, r.bars_per_mould FROM recipes r JOIN products p ON p.recipe_id = r.id WHERE p.id = $1',
       [p.id],
     )
+    const pourDate = ago(today, pour.daysAgo)
     // Whole moulds; the end slices of each loaf and any seconds beyond the orders are kept back.
     const moulds = Math.ceil(sellable / (recipe!.bars_per_mould - 2))
     const barsCut = moulds * recipe!.bars_per_mould
@@ -273,10 +275,11 @@ export const up: Migration = async ({ context: { sequelize } }) => {
     }
     const suggestion = await suggestLots(plan)
     for (const line of suggestion.lines) {
-      if (line.needed <= 0) continue
-      // A delivery of everything the pour takes, a week before it, from the supplier of the
-      // studio's first lot at that lot's unit price: the pour draws the oldest lots first, and the
-      // studio ends with as much of every supply on hand as before these pours.
+      // A supply that had not arrived by the pour date, or that the pour would take more than half
+      // of, is bought a week before the pour, as much as the pour takes, from the supplier of the
+      // studio's first lot at its unit price: the studio keeps enough of everything for its next
+      // pours.
+      if (line.needed <= 0 || (line.shortBy <= 0 && line.needed <= line.available / 2)) continue
       const [first] = await q<{ supplier: string | null; cost_cents: number; quantity: string }>(
         'SELECT supplier, cost_cents, quantity FROM ingredient_lots WHERE ingredient_id = $1 ORDER BY received_on, id LIMIT 1',
         [line.ingredientId],

@@ -135,7 +135,9 @@ describe('GET /api/ingredients', () => {
     const lye = items.find((i) => i.name === 'Sodium hydroxide')!
     expect(lye).toMatchObject({ kind: 'lye', purityPct: 99, sapNaoh: null, sapKoh: null, unit: 'g' })
     const box = items.find((i) => i.name === 'Kraft bar box')!
-    expect(box).toMatchObject({ kind: 'packaging', unit: 'each', lots: 1 })
+    expect(box).toMatchObject({ kind: 'packaging', unit: 'each' })
+    // the demo's first delivery, plus any restock a later part of the scenario records
+    expect(box.lots).toBeGreaterThanOrEqual(1)
     // 1000 boxes for $210.00: 21 ¢ each however many are left (hand calculation)
     if (box.onHand > 0) expect(box.currentUnitCost).toBeCloseTo(21, 10)
     const lavender = items.find((i) => i.name === 'Lavender essential oil')!

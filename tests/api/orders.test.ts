@@ -910,6 +910,30 @@ describe('PATCH /api/orders/:id/lines', () => {
   })
 })
 
+describe('GET /api/orders/:id/product-options', () => {
+  it('gives the owner the order’s shop catalogue at its tier, with stock; nobody else', async () => {
+    const p = await makeProduct({
+      prices: { Standard: [[1, 710]], Preferred: [[1, 660]] },
+      batches: [{ readyInDays: -3, bars: 30 }],
+    })
+    const order = await place(buyerB, [{ productId: p.productId, cases: 1 }])
+    const r = await owner.get(`/api/orders/${order.id}/product-options`)
+    expect(r.status).toBe(200)
+    const item = r.body.items.find((i: { productId: number }) => i.productId === p.productId)
+    // Harbor Lane General is on the Standard tier; 30 − 6 reserved = 24 bars ready
+    expect(item).toMatchObject({
+      priceBreaks: [{ minCases: 1, unitPriceCents: 710 }],
+      readyBars: 24,
+      readyCases: 4,
+    })
+    expect((await buyerB.get(`/api/orders/${order.id}/product-options`)).status).toBe(403)
+    expect((await packer.get(`/api/orders/${order.id}/product-options`)).status).toBe(403)
+    expect((await anon.get(`/api/orders/${order.id}/product-options`)).status).toBe(401)
+    expect((await owner.get('/api/orders/99999999/product-options')).status).toBe(404)
+    expect(fields(await owner.get('/api/orders/x/product-options'))).toEqual(['params.id'])
+  })
+})
+
 describe('POST /api/orders/:id/reorder', () => {
   it('puts the order’s lines in the cart at today’s prices and says what stock cannot cover', async () => {
     const roomy = await makeProduct({ batches: [{ readyInDays: -5, bars: 60 }] })

@@ -51,7 +51,9 @@ describe('a buyer places a case order', () => {
 
     // One case first: below the reorder minimum.
     await lavender.getByRole('button', { name: 'Add to cart' }).click()
-    await expect.poll(() => page.getByText(/1 case of Lavender Field added to the cart/).isVisible()).toBe(true)
+    await expect
+      .poll(() => page.getByText(/1 case of Lavender Field added to the cart/).isVisible())
+      .toBe(true)
     await page.getByRole('link', { name: /^Cart/ }).first().click()
     await page.waitForURL(/\/shop\/cart$/)
     await expect.poll(() => page.getByText(/Add \$[\d.,]+ more merchandise to/).isVisible()).toBe(true)
@@ -60,10 +62,39 @@ describe('a buyer places a case order', () => {
     expect(await page.getByRole('button', { name: 'Place order' }).isDisabled()).toBe(true)
     await screenshot(page, 'buyer-cart-below-minimum')
 
-    // Four cases: 48 bars at the 1–4 case price, $223.20, over the $150 minimum.
-    await page.getByLabel('Cases of Lavender Field', { exact: true }).fill('4')
+    // Enough cases of a second product to meet the minimum, chosen from what the demo has ready
+    // (leaving alone the products the packing flow orders).
+    const { cart } = await (await page.request.get('/api/cart')).json()
+    const { items } = await (await page.request.get('/api/catalogue')).json()
+    type Item = {
+      sku: string
+      name: string
+      casePack: number
+      readyCases: number
+      priceBreaks: { unitPriceCents: number }[]
+    }
+    const second = (items as Item[])
+      .filter((i) => !['LAV', 'UNS', 'GCL', 'UNS-XL'].includes(i.sku) && i.readyCases > 0)
+      .sort(
+        (a, b) =>
+          b.readyCases * b.casePack * b.priceBreaks[0]!.unitPriceCents -
+          a.readyCases * a.casePack * a.priceBreaks[0]!.unitPriceCents,
+      )[0]!
+    // The lowest break bounds the price from below, so this many cases surely meets the minimum.
+    const lowest = Math.min(...second.priceBreaks.map((b) => b.unitPriceCents))
+    const needed = Math.ceil(cart.belowMinimumByCents / (lowest * second.casePack))
+    if (needed > second.readyCases)
+      throw new Error(`the demo has too little ready stock of ${second.sku} for this test`)
+    await page.getByRole('link', { name: 'Catalogue' }).first().click()
+    await page.getByLabel('Search').fill(second.name)
+    const row = productIn(page, second.name, 'row')
+    await row.getByLabel(`Cases of ${second.name}`, { exact: true }).fill(String(needed))
+    await row.getByRole('button', { name: 'Add to cart' }).click()
+    await expect.poll(() => page.getByText(new RegExp(`added to the cart`)).last().isVisible()).toBe(true)
+    await page.getByRole('link', { name: /^Cart/ }).first().click()
+    await page.waitForURL(/\/shop\/cart$/)
     await expect.poll(() => page.getByText('Your order meets the minimum.').isVisible()).toBe(true)
-    await expect.poll(() => page.getByText('48 bars').isVisible()).toBe(true)
+    await expect.poll(() => page.getByText('12 bars').first().isVisible()).toBe(true)
     await page.getByLabel(/PO number/).fill(po)
     await page.getByLabel(/Note to the studio/).fill('For the winter window, please.')
     expect(await axeViolations(page)).toEqual([])
@@ -87,14 +118,18 @@ describe('a buyer places a case order', () => {
     await expect.poll(() => page.getByRole('link', { name: orderNumber }).isVisible()).toBe(true)
     expect(await page.getByRole('cell', { name: po }).count()).toBe(1)
     await screenshot(page, 'buyer-orders')
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Download CSV' }).click()])
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('link', { name: 'Download CSV' }).click(),
+    ])
     const csv = fs.readFileSync((await download.path())!, 'utf8')
-    expect(csv.split('\r\n').filter((l) => l.startsWith(orderNumber))).toHaveLength(1)
-    expect(csv).toContain(`,${po},LAV,Lavender Field,4,48,`)
+    // One row per line: Lavender Field and the second product.
+    expect(csv.split('\r\n').filter((l) => l.startsWith(orderNumber))).toHaveLength(2)
+    expect(csv).toContain(`,${po},LAV,Lavender Field,1,12,`)
 
     const mail = await waitForMail(buyer.buyer.email, new RegExp(`Order ${orderNumber} placed`))
     expect(mail.text).toContain(po)
-    expect(mail.text).toContain('4 cases of Lavender Field (LAV), 48 bars')
+    expect(mail.text).toContain('1 case of Lavender Field (LAV), 12 bars')
     await context.close()
   })
 
@@ -110,7 +145,11 @@ describe('a buyer places a case order', () => {
     await cedar.getByRole('button', { name: 'Add to cart' }).click()
     await expect.poll(() => page.getByText(/2 cases of Cedar & Sage added/).isVisible()).toBe(true)
     await page.goto('/shop/cart')
-    await expect.poll(() => page.getByRole('list', { name: 'Lines in your cart' }).getByText('Cedar & Sage').isVisible()).toBe(true)
+    await expect
+      .poll(() =>
+        page.getByRole('list', { name: 'Lines in your cart' }).getByText('Cedar & Sage').isVisible(),
+      )
+      .toBe(true)
     await screenshot(page, 'phone-buyer-cart')
     // Out again: the cart stays as the next test found it.
     await page.getByRole('button', { name: 'Remove Cedar & Sage' }).click()
@@ -118,7 +157,9 @@ describe('a buyer places a case order', () => {
     await page.goto('/shop/orders')
     await expect.poll(() => page.getByRole('link', { name: orderNumber }).isVisible()).toBe(true)
     await page.getByRole('link', { name: orderNumber }).click()
-    await expect.poll(() => page.getByRole('heading', { level: 1, name: new RegExp(orderNumber) }).isVisible()).toBe(true)
+    await expect
+      .poll(() => page.getByRole('heading', { level: 1, name: new RegExp(orderNumber) }).isVisible())
+      .toBe(true)
     await screenshot(page, 'phone-buyer-order')
     await context.close()
   })
@@ -137,12 +178,29 @@ describe('a buyer places a case order', () => {
     await page.getByRole('link', { name: orderNumber }).click()
     await page.waitForURL(/\/studio\/orders\/\d+$/)
     // The lot code of the batch the bars come from (pour date, SKU, pour of the day).
-    await expect.poll(() => page.getByText(/^\d{6}-LAV-\d{2}$/).first().isVisible()).toBe(true)
+    await expect
+      .poll(() =>
+        page
+          .getByText(/^\d{6}-LAV-\d{2}$/)
+          .first()
+          .isVisible(),
+      )
+      .toBe(true)
     await page.waitForLoadState('networkidle')
     expect(await axeViolations(page)).toEqual([])
     await screenshot(page, 'owner-order')
+    // The line editor offers the shop's catalogue with its stock; nothing is saved here.
+    await page.getByRole('button', { name: 'Change lines' }).click()
+    const editor = page.getByRole('dialog', { name: `Change the lines of ${orderNumber}` })
+    await expect.poll(() => editor.getByLabel('Cases of Lavender Field', { exact: true }).isVisible()).toBe(true)
+    await expect.poll(() => editor.getByLabel('Add a product').isVisible()).toBe(true)
+    expect(await axeViolations(page)).toEqual([])
+    await screenshot(page, 'owner-order-edit-lines')
+    await editor.getByRole('button', { name: 'Discard changes' }).click()
     await page.getByRole('button', { name: 'Confirm order' }).click()
-    await expect.poll(() => page.getByText(`Order ${orderNumber} is confirmed; the shop is told.`).isVisible()).toBe(true)
+    await expect
+      .poll(() => page.getByText(`Order ${orderNumber} is confirmed; the shop is told.`).isVisible())
+      .toBe(true)
     await expect.poll(() => page.getByRole('button', { name: 'Confirm order' }).count()).toBe(0)
     await waitForMail(buyer.buyer.email, new RegExp(`Order ${orderNumber} confirmed`))
     await context.close()

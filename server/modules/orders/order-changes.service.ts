@@ -87,14 +87,17 @@ async function release(
   return held.reduce((n, a) => n + a.bars, 0)
 }
 
-export async function confirmOrder(id: number, actor: Actor): Promise<OrderDto> {
+/** Options of a change: `notify: false` sends no e-mail (demo data, imports). */
+export type ChangeOptions = { notify?: boolean }
+
+export async function confirmOrder(id: number, actor: Actor, opts: ChangeOptions = {}): Promise<OrderDto> {
   await retryingTransaction(async (t) => {
     const order = await lockOrder(id, actor, t)
     const status = transition(order.status, 'confirm', actor.role)
     await order.update({ status, confirmedAt: new Date(), confirmedBy: actor.userId }, { transaction: t })
     await audit({ userId: actor.userId, action: 'order.confirmed', entity: 'order', entityId: id }, t)
   })
-  sendOrderMailsLater([{ kind: 'confirmed', orderId: id }])
+  if (opts.notify !== false) sendOrderMailsLater([{ kind: 'confirmed', orderId: id }])
   return afterChange(id, actor)
 }
 
@@ -102,7 +105,12 @@ export async function confirmOrder(id: number, actor: Actor): Promise<OrderDto> 
  * A buyer may cancel while the order is placed, the owner until it ships. Every reserved bar goes
  * back to free stock in the same transaction; waiting pre-orders simply stop waiting.
  */
-export async function cancelOrder(id: number, actor: Actor, reason: string | undefined): Promise<OrderDto> {
+export async function cancelOrder(
+  id: number,
+  actor: Actor,
+  reason: string | undefined,
+  opts: ChangeOptions = {},
+): Promise<OrderDto> {
   await retryingTransaction(async (t) => {
     const order = await lockOrder(id, actor, t)
     const status = transition(order.status, 'cancel', actor.role)
@@ -122,7 +130,8 @@ export async function cancelOrder(id: number, actor: Actor, reason: string | und
       t,
     )
   })
-  sendOrderMailsLater([{ kind: 'cancelled', orderId: id, byStudio: actor.role === 'owner' }])
+  if (opts.notify !== false)
+    sendOrderMailsLater([{ kind: 'cancelled', orderId: id, byStudio: actor.role === 'owner' }])
   return afterChange(id, actor)
 }
 

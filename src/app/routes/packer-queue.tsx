@@ -44,17 +44,24 @@ export function Component() {
   const packing = items.filter((i) => i.status === 'packing')
   const mine = packing.filter((i) => i.packer?.id === me.data?.id).length
 
-  const printButton = (
+  // Links rather than buttons: the PDF opens in a tab of its own to print, or downloads.
+  const none = ids.length === 0
+  const pdfLink = (label: string, variant: 'primary' | 'secondary', download: boolean) => (
     <a
-      href={ids.length ? pickListPdfHref(ids) : undefined}
-      target="_blank"
-      rel="noopener"
-      aria-disabled={ids.length === 0 || undefined}
-      onClick={(e) => ids.length === 0 && e.preventDefault()}
-      className={cn(buttonClasses('primary', 'md'), ids.length === 0 && 'pointer-events-none')}
+      href={none ? undefined : pickListPdfHref(ids)}
+      {...(download ? { download: true } : { target: '_blank', rel: 'noopener' })}
+      aria-disabled={none || undefined}
+      onClick={(e) => none && e.preventDefault()}
+      className={cn(buttonClasses(variant, 'md'), none && 'pointer-events-none')}
     >
-      Print pick list{ids.length ? ` (${ids.length})` : ''}
+      {label}
     </a>
+  )
+  const printButton = (
+    <>
+      {pdfLink(`Print pick list${ids.length ? ` (${ids.length})` : ''}`, 'primary', false)}
+      {pdfLink('Download pick list (PDF)', 'secondary', true)}
+    </>
   )
 
   return (

@@ -182,7 +182,7 @@ export function DataTable<T extends RowData>({
         role="region"
         aria-labelledby={captionId}
         tabIndex={0}
-        className="overflow-x-auto focus-visible:outline-offset-[-2px] print:overflow-visible"
+        className="relative overflow-x-auto focus-visible:outline-offset-[-2px] print:overflow-visible"
       >
         <table className="w-full border-collapse text-sm">
           <caption id={captionId} className="sr-only">

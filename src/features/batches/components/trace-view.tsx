@@ -70,7 +70,7 @@ export function TraceTable({ trace, batchHref }: { trace: TraceResult; batchHref
           meta: { align: 'end' },
           cell: (c) => formatQuantity(c.getValue(), unit),
         }),
-        col.accessor((r) => r.shopName ?? 'Not shipped', { id: 'shop', header: 'Shop' }),
+        col.accessor((r) => r.shopName ?? 'None shipped yet', { id: 'shop', header: 'Shop' }),
         col.accessor((r) => r.orderNumber ?? '—', { id: 'order', header: 'Order' }),
         col.accessor('bars', { header: 'Bars', meta: { align: 'end' } }),
         col.accessor((r) => (r.shipDate ? formatDate(r.shipDate) : '—'), {

@@ -6,6 +6,7 @@ import { Button } from '@/components/ui/button'
 import { Money } from '@/components/ui/money'
 import { Stepper } from '@/components/ui/stepper'
 import { useRemoveCartLine, useSetCartLine } from '@/features/cart/api/cart'
+import { breakRange } from '@/lib/price-breaks'
 
 const cases = (n: number) => `${n} ${n === 1 ? 'case' : 'cases'}`
 
@@ -89,7 +90,12 @@ export function CartLines({ cart, lineErrors, renderTile }: Props) {
                 {line.priceBreak ? (
                   <p className="mt-1 text-sm text-ink-700">
                     <Money cents={line.unitPriceCents} currency={cart.currency} /> a bar
-                    {line.priceBreaks.length > 1 ? ` (the ${line.priceBreak.minCases}+ case price)` : ''}
+                    {line.priceBreaks.length > 1
+                      ? ` (the price for ${breakRange(
+                          line.priceBreaks,
+                          line.priceBreaks.findIndex((b) => b.minCases === line.priceBreak!.minCases),
+                        )})`
+                      : ''}
                   </p>
                 ) : null}
                 {line.nextBreak ? (
@@ -127,7 +133,7 @@ export function CartLines({ cart, lineErrors, renderTile }: Props) {
                 unit="case"
                 disabled={line.stock === 'unavailable'}
               />
-              <p className="text-sm text-ink-700 tabular-nums">{line.bars} bars</p>
+              <p className="text-sm whitespace-nowrap text-ink-700 tabular-nums">{line.bars} bars</p>
               <p className="font-medium text-ink-900">
                 <Money cents={line.lineTotalCents} currency={cart.currency} />
               </p>

@@ -49,6 +49,8 @@ export function CartView({ cart, renderTile, onPlaced }: Props) {
   const [lineErrors, setLineErrors] = useState<Map<number, string>>(new Map())
   // One key per attempt: a second click or a retry of the same attempt reuses it.
   const attempt = useRef<string | null>(null)
+  // Set at once (state would wait for a render), so a second click while sending does nothing.
+  const sending = useRef(false)
   const form = useForm<CheckoutIn, unknown, CheckoutOut>({
     resolver: zodResolver(CheckoutSchema),
     defaultValues: { poNumber: '', note: '' },
@@ -58,7 +60,16 @@ export function CartView({ cart, renderTile, onPlaced }: Props) {
   const minimumLabel = cart.minimumKind === 'opening' ? 'Opening order minimum' : 'Reorder minimum'
 
   const submit = form.handleSubmit(async (values) => {
-    if (place.isPending) return
+    if (sending.current) return
+    sending.current = true
+    try {
+      await send(values)
+    } finally {
+      sending.current = false
+    }
+  })
+
+  const send = async (values: CheckoutOut) => {
     setFormError(null)
     setLineErrors(new Map())
     attempt.current ??= newIdempotencyKey()
@@ -104,11 +115,11 @@ export function CartView({ cart, renderTile, onPlaced }: Props) {
         lineFieldErrors.size > 0 ? err.message : applyApiErrors(err, form.setError, ['poNumber', 'note']),
       )
     }
-  })
+  }
 
   return (
     <div className="grid gap-6 lg:grid-cols-3">
-      <Card className="lg:col-span-2">
+      <Card className="self-start lg:col-span-2">
         <CardHeader
           title="Lines"
           description={`${cart.cases} ${cart.cases === 1 ? 'case' : 'cases'} · ${kg(cart.weightG)}`}

@@ -107,7 +107,7 @@ export function CatalogueBrowser({ items, currency, renderTile, renderAction }: 
   const state = useMemo(
     () => ({
       globalFilter: search,
-      columnFilters: show === 'all' ? [] : [{ id: 'availability', value: show }],
+      columnFilters: show === 'all' ? [] : [{ id: 'availability', value: [show] }],
       sorting: [...SORTS[sort].sorting],
     }),
     [search, show, sort],

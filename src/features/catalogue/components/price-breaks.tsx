@@ -1,16 +1,7 @@
 import type { PriceBreakDto } from '@shared/schemas/orders'
 import { formatMoney } from '@/components/ui/money'
 import { cn } from '@/lib/cn'
-
-/** "1–4 cases", "5+ cases", "1 case": the case counts a break covers. */
-function range(breaks: PriceBreakDto[], i: number): string {
-  const from = breaks[i]!.minCases
-  const next = breaks[i + 1]
-  if (!next) return `${from}+ cases`
-  const to = next.minCases - 1
-  if (to === from) return `${from} ${from === 1 ? 'case' : 'cases'}`
-  return `${from}–${to} cases`
-}
+import { breakRange } from '@/lib/price-breaks'
 
 /** The shop's breaks: "1–4 cases $6.80 a bar ($81.60 a case)", one per line. */
 export function PriceBreaks({
@@ -28,7 +19,7 @@ export function PriceBreaks({
     <ul className={cn('flex flex-col gap-0.5 text-sm', className)} aria-label="Your price per bar">
       {breaks.map((b, i) => (
         <li key={b.minCases} className="flex flex-wrap items-baseline gap-x-1.5 tabular-nums">
-          <span className="text-ink-700">{range(breaks, i)}</span>
+          <span className="text-ink-700">{breakRange(breaks, i)}</span>
           <span className={cn('font-medium', i === 0 ? 'text-ink-900' : 'text-olive-800')}>
             {formatMoney(b.unitPriceCents, currency)}
           </span>

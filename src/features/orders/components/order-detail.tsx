@@ -44,7 +44,7 @@ export function OrderDetail({ order, showLots = false }: { order: OrderDto; show
   ]
   return (
     <div className="grid gap-6 lg:grid-cols-3">
-      <Card className="lg:col-span-2">
+      <Card className="self-start lg:col-span-2">
         <CardHeader
           title="Lines"
           description={`${casesText(order.lines.reduce((n, l) => n + l.cases, 0))} · ${order.lines.length} ${order.lines.length === 1 ? 'product' : 'products'}`}

@@ -66,14 +66,27 @@ export function QueueTable({ items, me, orderHref, label, selection, toolbar, em
           header: 'Ship by',
           cell: (c) => (c.getValue() ? formatDate(c.getValue()) : '—'),
         }),
-        col.accessor('bars', { header: 'To pull', meta: { align: 'end' }, cell: (c) => cases(c.row.original) }),
+        col.accessor('bars', {
+          header: 'To pull',
+          meta: { align: 'end' },
+          cell: (c) => cases(c.row.original),
+        }),
         col.accessor((o) => o.packer?.name ?? '', {
           id: 'packer',
           header: 'Packer',
           cell: (c) => {
             const o = c.row.original
-            if (!o.packer) return o.readyToPack ? <Badge>Not claimed</Badge> : <Badge tone="honey">Waiting for stock</Badge>
-            return <Badge tone={o.packer.id === me.id ? 'green' : 'sky'}>{o.packer.id === me.id ? 'You' : o.packer.name}</Badge>
+            if (!o.packer)
+              return o.readyToPack ? (
+                <Badge>Not claimed</Badge>
+              ) : (
+                <Badge tone="honey">Waiting for stock</Badge>
+              )
+            return (
+              <Badge tone={o.packer.id === me.id ? 'green' : 'sky'}>
+                {o.packer.id === me.id ? 'You' : o.packer.name}
+              </Badge>
+            )
           },
         }),
         col.display({
@@ -83,7 +96,12 @@ export function QueueTable({ items, me, orderHref, label, selection, toolbar, em
             const o = c.row.original
             if (o.status === 'packed') {
               return (
-                <LinkButton to={orderHref(o.orderId)} size="sm" variant="secondary" aria-label={`Ship ${o.number}`}>
+                <LinkButton
+                  to={orderHref(o.orderId)}
+                  size="sm"
+                  variant="secondary"
+                  aria-label={`Ship ${o.number}`}
+                >
                   Ship
                 </LinkButton>
               )
@@ -92,7 +110,12 @@ export function QueueTable({ items, me, orderHref, label, selection, toolbar, em
             const busy = claim.isPending && claim.variables?.id === o.orderId
             if (o.status === 'packing' && (mine || me.role !== 'owner')) {
               return (
-                <LinkButton to={orderHref(o.orderId)} size="sm" variant="secondary" aria-label={`Open ${o.number}`}>
+                <LinkButton
+                  to={orderHref(o.orderId)}
+                  size="sm"
+                  variant="secondary"
+                  aria-label={`${mine ? 'Continue' : 'View'} ${o.number}`}
+                >
                   {mine ? 'Continue' : 'View'}
                 </LinkButton>
               )
