@@ -347,6 +347,7 @@ export const up: Migration = async ({ context: { sequelize } }) => {
       shopId: shop.shop_id,
       userId: shop.buyer_id,
       idempotencyKey: `demo-order-${i + 1}`,
+      notify: false,
       input: PlaceOrderSchema.parse({
         lines: o.lines.map((l) => ({ productId: product(l.sku).id, cases: l.cases })),
         poNumber: o.po,
@@ -359,7 +360,7 @@ export const up: Migration = async ({ context: { sequelize } }) => {
     )
 
     if (o.cancelled) {
-      await cancelOrder(order.id, ownerActor, o.cancelled.reason)
+      await cancelOrder(order.id, ownerActor, o.cancelled.reason, { notify: false })
       await q(
         `UPDATE orders SET cancelled_at = ${stamp(o.cancelled.daysAgo)}, updated_at = ${stamp(o.cancelled.daysAgo)} WHERE id = $1`,
         [order.id],
@@ -367,7 +368,8 @@ export const up: Migration = async ({ context: { sequelize } }) => {
       await backdateLedger(order.id, { reserved: o.placed, released: o.cancelled.daysAgo })
       continue
     }
-    if (o.confirmed !== undefined && order.status === 'placed') await confirmOrder(order.id, ownerActor)
+    if (o.confirmed !== undefined && order.status === 'placed')
+      await confirmOrder(order.id, ownerActor, { notify: false })
     if (o.confirmed !== undefined) {
       await q(`UPDATE orders SET confirmed_at = ${stamp(o.confirmed)} WHERE id = $1`, [order.id])
       // A prepay account is invoiced at confirmation (unless the confirmation already did it).

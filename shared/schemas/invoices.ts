@@ -19,7 +19,10 @@ export const DOCUMENT_STATUS_LABELS: Record<DocumentStatus, string> = {
   credit: 'Credit note',
 }
 
-export const INVOICE_KIND_LABELS: Record<InvoiceKind, string> = { invoice: 'Invoice', credit_note: 'Credit note' }
+export const INVOICE_KIND_LABELS: Record<InvoiceKind, string> = {
+  invoice: 'Invoice',
+  credit_note: 'Credit note',
+}
 
 export const InvoiceIdParamsSchema = z.object({
   id: z.coerce
@@ -29,8 +32,7 @@ export const InvoiceIdParamsSchema = z.object({
 })
 
 const list = (v: unknown) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v)
-const isoDate = (example: string) =>
-  z.string().trim().refine(isValidIsoDate, `Use a date like ${example}.`)
+const isoDate = (example: string) => z.string().trim().refine(isValidIsoDate, `Use a date like ${example}.`)
 
 /** `GET /api/invoices` and `GET /api/invoices.csv`; `from`/`to` bound the issue date. */
 export const InvoiceListQuerySchema = z

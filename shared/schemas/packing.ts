@@ -22,7 +22,13 @@ export const PICK_LIST_MAX_ORDERS = 40
 /** `GET /api/pick-list?orders=1,2,3` (and `.pdf`): the orders to pull bars for, each once. */
 export const PickListQuerySchema = z.object({
   orders: z.preprocess(
-    (v) => (typeof v === 'string' ? v.split(',').map((s) => s.trim()).filter(Boolean) : v),
+    (v) =>
+      typeof v === 'string'
+        ? v
+            .split(',')
+            .map((s) => s.trim())
+            .filter(Boolean)
+        : v,
     z
       .array(
         z.coerce
@@ -124,7 +130,13 @@ export type PickProduct = {
 
 /** `GET /api/pick-list`: every bar to pull for the chosen orders, by product and by batch lot. */
 export type PickListDto = {
-  orders: { orderId: number; number: string; shopName: string; poNumber: string | null; status: OrderStatus }[]
+  orders: {
+    orderId: number
+    number: string
+    shopName: string
+    poNumber: string | null
+    status: OrderStatus
+  }[]
   products: PickProduct[]
   totalBars: number
   totalCases: number

@@ -30,7 +30,17 @@ let today: string
 let netThirty: MadeOrder
 let netFifteen: MadeOrder
 
-const CONTRACT_KEYS = ['id', 'number', 'orderId', 'shopId', 'status', 'issueDate', 'dueDate', 'totalCents', 'paidCents']
+const CONTRACT_KEYS = [
+  'id',
+  'number',
+  'orderId',
+  'shopId',
+  'status',
+  'issueDate',
+  'dueDate',
+  'totalCents',
+  'paidCents',
+]
 const ALLOWED_EXTRA = ['orderNumber', 'shopName', 'kind', 'outstandingCents']
 
 async function invoiceFor(orderId: number) {
@@ -52,14 +62,28 @@ beforeAll(async () => {
   ])
   soap = await makeSellable(owner, { bars: 600, unitPriceCents: 1875 })
   today = await studioToday()
-  netThirty = await makeOrder({ shop: 'A', lines: [{ productId: soap.productId, cases: 3 }], status: 'shipped', poNumber: 'JV-PO-2231', notify: false })
-  netFifteen = await makeOrder({ shop: 'C', lines: [{ productId: soap.productId, cases: 2 }], status: 'shipped', poNumber: 'QK-5567', notify: false })
+  netThirty = await makeOrder({
+    shop: 'A',
+    lines: [{ productId: soap.productId, cases: 3 }],
+    status: 'shipped',
+    poNumber: 'JV-PO-2231',
+    notify: false,
+  })
+  netFifteen = await makeOrder({
+    shop: 'C',
+    lines: [{ productId: soap.productId, cases: 2 }],
+    status: 'shipped',
+    poNumber: 'QK-5567',
+    notify: false,
+  })
 })
 
 describe('GET /api/invoices', () => {
   it('gives the owner every invoice in the contract shape, with the allowed extras only', async () => {
     const r = expectStatus(await owner.get('/api/invoices'), 200)
-    const mine = r.body.items.filter((i: { orderId: number }) => [netThirty.orderId, netFifteen.orderId].includes(i.orderId))
+    const mine = r.body.items.filter((i: { orderId: number }) =>
+      [netThirty.orderId, netFifteen.orderId].includes(i.orderId),
+    )
     expect(mine).toHaveLength(2)
     for (const item of r.body.items) {
       expect(Object.keys(item).sort()).toEqual([...CONTRACT_KEYS, ...ALLOWED_EXTRA].sort())
@@ -89,7 +113,9 @@ describe('GET /api/invoices', () => {
     expect(byShop.body.items.every((i: { shopId: number }) => i.shopId === netFifteen.shopId)).toBe(true)
     expect(byShop.body.items.map((i: { orderId: number }) => i.orderId)).toContain(netFifteen.orderId)
     const open = expectStatus(await owner.get('/api/invoices?status=open,part_paid'), 200)
-    expect(open.body.items.every((i: { status: string }) => ['open', 'part_paid'].includes(i.status))).toBe(true)
+    expect(open.body.items.every((i: { status: string }) => ['open', 'part_paid'].includes(i.status))).toBe(
+      true,
+    )
     const paid = expectStatus(await owner.get('/api/invoices?status=paid'), 200)
     expect(paid.body.items.map((i: { orderId: number }) => i.orderId)).not.toContain(netThirty.orderId)
     const past = expectStatus(await owner.get(`/api/invoices?to=${addDays(today, -1)}`), 200)
@@ -188,11 +214,25 @@ describe('GET /api/invoices/:id and /pdf', () => {
 
 describe('POST /api/invoices/:id/void', () => {
   it('voids the invoice and issues a credit note of the same totals with the next number', async () => {
-    const o = await makeOrder({ shop: 'A', lines: [{ productId: soap.productId, cases: 2 }], status: 'shipped', notify: false })
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: soap.productId, cases: 2 }],
+      status: 'shipped',
+      notify: false,
+    })
     const inv = await invoiceFor(o.orderId)
     const before = await snapshot()
-    const r = expectStatus(await owner.post(`/api/invoices/${inv.id}/void`, { reason: 'Shipped to the wrong store' }), 200)
-    expect(r.body.invoice).toMatchObject({ id: inv.id, number: inv.number, status: 'void', outstandingCents: 0, voidReason: 'Shipped to the wrong store' })
+    const r = expectStatus(
+      await owner.post(`/api/invoices/${inv.id}/void`, { reason: 'Shipped to the wrong store' }),
+      200,
+    )
+    expect(r.body.invoice).toMatchObject({
+      id: inv.id,
+      number: inv.number,
+      status: 'void',
+      outstandingCents: 0,
+      voidReason: 'Shipped to the wrong store',
+    })
     expect(r.body.creditNote).toMatchObject({
       kind: 'credit_note',
       status: 'credit',
@@ -210,27 +250,65 @@ describe('POST /api/invoices/:id/void', () => {
     expect(after.counts.invoices).toBe(before.counts.invoices + 1)
 
     const mail = await waitForMail(o.buyerEmail, new RegExp(`Credit note ${r.body.creditNote.number}`))
-    expect(mail.attachments?.[0]).toMatchObject({ contentType: 'application/pdf', filename: `credit-note-${r.body.creditNote.number}.pdf` })
-    const pdf = expectStatus(await owner.get(`/api/invoices/${r.body.creditNote.id}/pdf`).buffer(true).parse(binary), 200)
+    expect(mail.attachments?.[0]).toMatchObject({
+      contentType: 'application/pdf',
+      filename: `credit-note-${r.body.creditNote.number}.pdf`,
+    })
+    const pdf = expectStatus(
+      await owner.get(`/api/invoices/${r.body.creditNote.id}/pdf`).buffer(true).parse(binary),
+      200,
+    )
     keepPdf('credit-note.pdf', pdf.body as Buffer)
     expect(await pdfText(pdf.body as Buffer)).toContain(`Credits invoice`)
 
     // Never deleted or renumbered: the database itself refuses.
-    await expect(sequelize.query('DELETE FROM invoices WHERE id = $1', { bind: [inv.id] })).rejects.toThrow(/never deleted/)
-    await expect(sequelize.query(`UPDATE invoices SET number = 'X' WHERE id = $1`, { bind: [inv.id] })).rejects.toThrow(/keeps its number/)
+    await expect(sequelize.query('DELETE FROM invoices WHERE id = $1', { bind: [inv.id] })).rejects.toThrow(
+      /never deleted/,
+    )
+    await expect(
+      sequelize.query(`UPDATE invoices SET number = 'X' WHERE id = $1`, { bind: [inv.id] }),
+    ).rejects.toThrow(/keeps its number/)
   })
 
   it('refuses a void invoice, a credit note, and an invoice with payments (409), writing nothing', async () => {
-    const o = await makeOrder({ shop: 'A', lines: [{ productId: soap.productId, cases: 2 }], status: 'shipped', notify: false })
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: soap.productId, cases: 2 }],
+      status: 'shipped',
+      notify: false,
+    })
     const inv = await invoiceFor(o.orderId)
-    const voided = expectStatus(await owner.post(`/api/invoices/${inv.id}/void`, { reason: 'Duplicate order' }), 200)
+    const voided = expectStatus(
+      await owner.post(`/api/invoices/${inv.id}/void`, { reason: 'Duplicate order' }),
+      200,
+    )
     const before = await snapshot()
-    expect(expectStatus(await owner.post(`/api/invoices/${inv.id}/void`, { reason: 'Again' }), 409).body.error.code).toBe('already_void')
-    expect(expectStatus(await owner.post(`/api/invoices/${voided.body.creditNote.id}/void`, { reason: 'Nope' }), 409).body.error.code).toBe('not_voidable')
+    expect(
+      expectStatus(await owner.post(`/api/invoices/${inv.id}/void`, { reason: 'Again' }), 409).body.error
+        .code,
+    ).toBe('already_void')
+    expect(
+      expectStatus(
+        await owner.post(`/api/invoices/${voided.body.creditNote.id}/void`, { reason: 'Nope' }),
+        409,
+      ).body.error.code,
+    ).toBe('not_voidable')
 
-    const paidOrder = await makeOrder({ shop: 'C', lines: [{ productId: soap.productId, cases: 2 }], status: 'shipped', notify: false })
+    const paidOrder = await makeOrder({
+      shop: 'C',
+      lines: [{ productId: soap.productId, cases: 2 }],
+      status: 'shipped',
+      notify: false,
+    })
     const paid = await invoiceFor(paidOrder.orderId)
-    expectStatus(await owner.post(`/api/invoices/${paid.id}/payments`, { method: 'card', amountCents: 500, receivedOn: today }), 201)
+    expectStatus(
+      await owner.post(`/api/invoices/${paid.id}/payments`, {
+        method: 'card',
+        amountCents: 500,
+        receivedOn: today,
+      }),
+      201,
+    )
     const mid = await snapshot()
     const r = expectStatus(await owner.post(`/api/invoices/${paid.id}/void`, { reason: 'Changed mind' }), 409)
     expect(r.body.error.code).toBe('invoice_has_payments')
@@ -256,12 +334,20 @@ describe('POST /api/orders/:id/invoice', () => {
     const before = await snapshot()
     const r = expectStatus(await owner.post(`/api/orders/${netThirty.orderId}/invoice`), 409)
     expect(r.body.error.code).toBe('invoice_exists')
-    expect(r.body.error.details[0]).toMatchObject({ field: 'orderId', number: (await invoiceFor(netThirty.orderId)).number })
+    expect(r.body.error.details[0]).toMatchObject({
+      field: 'orderId',
+      number: (await invoiceFor(netThirty.orderId)).number,
+    })
     expect(await snapshot()).toEqual(before)
   })
 
   it('raises a new invoice after the old one was voided', async () => {
-    const o = await makeOrder({ shop: 'C', lines: [{ productId: soap.productId, cases: 2 }], status: 'shipped', notify: false })
+    const o = await makeOrder({
+      shop: 'C',
+      lines: [{ productId: soap.productId, cases: 2 }],
+      status: 'shipped',
+      notify: false,
+    })
     const old = await invoiceFor(o.orderId)
     expectStatus(await owner.post(`/api/invoices/${old.id}/void`, { reason: 'Wrong terms' }), 200)
     const r = expectStatus(await owner.post(`/api/orders/${o.orderId}/invoice`), 201)
@@ -270,7 +356,11 @@ describe('POST /api/orders/:id/invoice', () => {
   })
 
   it('refuses an order that is not yet due an invoice, and answers 403/401/404', async () => {
-    const confirmed = await makeOrder({ shop: 'A', lines: [{ productId: soap.productId, cases: 2 }], status: 'confirmed' })
+    const confirmed = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: soap.productId, cases: 2 }],
+      status: 'confirmed',
+    })
     const before = await snapshot()
     const r = expectStatus(await owner.post(`/api/orders/${confirmed.orderId}/invoice`), 409)
     expect(r.body.error.code).toBe('order_not_invoiceable')
@@ -288,8 +378,14 @@ describe('POST /api/invoices/:id/send', () => {
     const shop = await demoShop('C')
     const r = expectStatus(await owner.post(`/api/invoices/${inv.id}/send`), 200)
     expect(r.body.sentTo).toContain(shop.email)
-    const mail = await waitForMail(shop.email, new RegExp(`Invoice ${inv.number} from Brindlewick Soapery \\(copy\\)`))
-    expect(mail.attachments?.[0]).toMatchObject({ contentType: 'application/pdf', filename: `invoice-${inv.number}.pdf` })
+    const mail = await waitForMail(
+      shop.email,
+      new RegExp(`Invoice ${inv.number} from Brindlewick Soapery \\(copy\\)`),
+    )
+    expect(mail.attachments?.[0]).toMatchObject({
+      contentType: 'application/pdf',
+      filename: `invoice-${inv.number}.pdf`,
+    })
     expectStatus(await buyerC.post(`/api/invoices/${inv.id}/send`), 403)
     expectStatus(await anon.post(`/api/invoices/${inv.id}/send`), 401)
     expectStatus(await owner.post('/api/invoices/99999999/send'), 404)
@@ -300,29 +396,59 @@ describe('GET /api/invoices.csv', () => {
   it('exports the invoices for the bookkeeper as a CSV attachment', async () => {
     const r = expectStatus(await owner.get(`/api/invoices.csv?shopId=${netThirty.shopId}`), 200)
     expect(r.headers['content-type']).toMatch(/^text\/csv/)
-    expect(r.headers['content-disposition']).toMatch(/^attachment; filename="invoices-\d{4}-\d{2}-\d{2}\.csv"$/)
+    expect(r.headers['content-disposition']).toMatch(
+      /^attachment; filename="invoices-\d{4}-\d{2}-\d{2}\.csv"$/,
+    )
     const [header, ...rows] = parseCsv(r.text).map((x) => x.fields)
     expect(header).toEqual([
-      'Number', 'Kind', 'Issue date', 'Due date', 'Shop', 'Order', 'PO number', 'Terms', 'Subtotal', 'Shipping',
-      'Tax', 'Total', 'Paid', 'Outstanding', 'Status', 'Credits invoice', 'Voided on', 'Void reason',
+      'Number',
+      'Kind',
+      'Issue date',
+      'Due date',
+      'Shop',
+      'Order',
+      'PO number',
+      'Terms',
+      'Subtotal',
+      'Shipping',
+      'Tax',
+      'Total',
+      'Paid',
+      'Outstanding',
+      'Status',
+      'Credits invoice',
+      'Voided on',
+      'Void reason',
     ])
     const inv = await invoiceFor(netThirty.orderId)
     const row = rows.find((x) => x[0] === inv.number)!
-    expect(row.slice(1, 8)).toEqual(['Invoice', today, addDays(today, 30), 'Juniper & Vine', netThirty.number, 'JV-PO-2231', 'Net 30'])
+    expect(row.slice(1, 8)).toEqual([
+      'Invoice',
+      today,
+      addDays(today, 30),
+      'Juniper & Vine',
+      netThirty.number,
+      'JV-PO-2231',
+      'Net 30',
+    ])
     expect(row[8]).toBe(((18 * 1875) / 100).toFixed(2))
     expect(rows.every((x) => x[4] === 'Juniper & Vine')).toBe(true)
   })
 
   it('keeps a shop name that looks like a formula from running in a spreadsheet', async () => {
     const shop = await demoShop('C')
-    await sequelize.query(`UPDATE shops SET trading_name = '=HYPERLINK("x")' WHERE id = $1`, { bind: [shop.shopId] })
+    await sequelize.query(`UPDATE shops SET trading_name = '=HYPERLINK("x")' WHERE id = $1`, {
+      bind: [shop.shopId],
+    })
     try {
       const r = expectStatus(await owner.get(`/api/invoices.csv?shopId=${shop.shopId}`), 200)
       const rows = parseCsv(r.text).slice(1)
       expect(rows.length).toBeGreaterThan(0)
       expect(rows.every((x) => x.fields[4] === `'=HYPERLINK("x")`)).toBe(true)
     } finally {
-      await sequelize.query('UPDATE shops SET trading_name = $2 WHERE id = $1', { bind: [shop.shopId, shop.tradingName] })
+      await sequelize.query('UPDATE shops SET trading_name = $2 WHERE id = $1', {
+        bind: [shop.shopId, shop.tradingName],
+      })
     }
   })
 
@@ -330,6 +456,8 @@ describe('GET /api/invoices.csv', () => {
     expectStatus(await buyerA.get('/api/invoices.csv'), 403)
     expectStatus(await packer.get('/api/invoices.csv'), 403)
     expectStatus(await anon.get('/api/invoices.csv'), 401)
-    expect(expectStatus(await owner.get('/api/invoices.csv?status=soon'), 400).body.error.details[0].field).toBe('query.status.0')
+    expect(
+      expectStatus(await owner.get('/api/invoices.csv?status=soon'), 400).body.error.details[0].field,
+    ).toBe('query.status.0')
   })
 })

@@ -10,7 +10,14 @@ import { sequelize } from '@server/db/sequelize'
 import { clientAs } from '@tests/factories/api-client'
 import { binary, expectStatus, keepPdf, pdfText } from '@tests/factories/responses'
 import type { ApiClient } from '@tests/factories/api-client'
-import { allKeys, makeOrder, makeSellable, orderStatus, pourMore, snapshot } from '@tests/factories/fulfilment'
+import {
+  allKeys,
+  makeOrder,
+  makeSellable,
+  orderStatus,
+  pourMore,
+  snapshot,
+} from '@tests/factories/fulfilment'
 import type { Sellable } from '@tests/factories/fulfilment'
 
 const app = createApp({ pruneSessions: false })
@@ -23,9 +30,6 @@ let cedar: Sellable
 
 /** Field names that would carry money or cost; none may reach a packer. */
 const PRICE_KEY = /price|cost|cents|margin|tax|amount|^total$|^subtotal$/i
-
-
-
 
 beforeAll(async () => {
   ;[owner, packer, buyer, anon] = await Promise.all([
@@ -40,10 +44,26 @@ beforeAll(async () => {
 
 describe('GET /api/packing/queue', () => {
   it('lists confirmed and packing orders oldest first with the account and who packs what, and no prices', async () => {
-    const placed = await makeOrder({ shop: 'A', lines: [{ productId: lavender.productId, cases: 1 }], status: 'placed' })
-    const first = await makeOrder({ shop: 'A', lines: [{ productId: lavender.productId, cases: 1 }], status: 'confirmed' })
-    const second = await makeOrder({ shop: 'C', lines: [{ productId: cedar.productId, cases: 1 }], status: 'packing' })
-    const packed = await makeOrder({ shop: 'A', lines: [{ productId: lavender.productId, cases: 1 }], status: 'packed' })
+    const placed = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: lavender.productId, cases: 1 }],
+      status: 'placed',
+    })
+    const first = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: lavender.productId, cases: 1 }],
+      status: 'confirmed',
+    })
+    const second = await makeOrder({
+      shop: 'C',
+      lines: [{ productId: cedar.productId, cases: 1 }],
+      status: 'packing',
+    })
+    const packed = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: lavender.productId, cases: 1 }],
+      status: 'packed',
+    })
 
     const r = await packer.get('/api/packing/queue').expect(200)
     const ids = r.body.items.map((i: { orderId: number }) => i.orderId)
@@ -77,16 +97,28 @@ describe('GET /api/packing/queue', () => {
 
 describe('POST /api/orders/:id/claim', () => {
   it('moves a confirmed order to packing with the packer on it; claiming it again changes nothing', async () => {
-    const o = await makeOrder({ shop: 'A', lines: [{ productId: lavender.productId, cases: 1 }], status: 'confirmed' })
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: lavender.productId, cases: 1 }],
+      status: 'confirmed',
+    })
     const r = expectStatus(await packer.post(`/api/orders/${o.orderId}/claim`, {}), 200)
-    expect(r.body.order).toMatchObject({ id: o.orderId, status: 'packing', packer: { name: 'Teo Lindqvist' } })
+    expect(r.body.order).toMatchObject({
+      id: o.orderId,
+      status: 'packing',
+      packer: { name: 'Teo Lindqvist' },
+    })
     expect([...allKeys(r.body)].filter((k) => PRICE_KEY.test(k))).toEqual([])
     const again = expectStatus(await packer.post(`/api/orders/${o.orderId}/claim`, {}), 200)
     expect(again.body.order.packingStartedAt).toBe(r.body.order.packingStartedAt)
   })
 
   it('answers 409 with who has it when someone else claimed the order; the owner may take it over', async () => {
-    const o = await makeOrder({ shop: 'C', lines: [{ productId: lavender.productId, cases: 1 }], status: 'packing' })
+    const o = await makeOrder({
+      shop: 'C',
+      lines: [{ productId: lavender.productId, cases: 1 }],
+      status: 'packing',
+    })
     const r = expectStatus(await owner.post(`/api/orders/${o.orderId}/claim`, {}), 409)
     expect(r.body.error.code).toBe('already_claimed')
     expect(r.body.error.message).toMatch(/Teo Lindqvist is packing/)
@@ -98,7 +130,11 @@ describe('POST /api/orders/:id/claim', () => {
   })
 
   it('refuses an order that is not confirmed (409 invalid_transition) and writes nothing', async () => {
-    const o = await makeOrder({ shop: 'A', lines: [{ productId: lavender.productId, cases: 1 }], status: 'placed' })
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: lavender.productId, cases: 1 }],
+      status: 'placed',
+    })
     const before = await snapshot([lavender.batchId])
     const r = expectStatus(await packer.post(`/api/orders/${o.orderId}/claim`, {}), 409)
     expect(r.body.error).toMatchObject({ code: 'invalid_transition' })
@@ -108,10 +144,17 @@ describe('POST /api/orders/:id/claim', () => {
   })
 
   it('checks its input and its callers', async () => {
-    const o = await makeOrder({ shop: 'A', lines: [{ productId: lavender.productId, cases: 1 }], status: 'confirmed' })
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: lavender.productId, cases: 1 }],
+      status: 'confirmed',
+    })
     const bad = expectStatus(await packer.post('/api/orders/abc/claim', {}), 400)
     expect(bad.body.error.details[0].field).toBe('params.id')
-    const badBody = expectStatus(await packer.post(`/api/orders/${o.orderId}/claim`, { takeOver: 'yes' }), 400)
+    const badBody = expectStatus(
+      await packer.post(`/api/orders/${o.orderId}/claim`, { takeOver: 'yes' }),
+      400,
+    )
     expect(badBody.body.error.details[0].field).toBe('takeOver')
     expectStatus(await packer.post('/api/orders/99999999/claim', {}), 404)
     expectStatus(await buyer.post(`/api/orders/${o.orderId}/claim`, {}), 403)
@@ -125,7 +168,11 @@ describe('GET /api/pick-list and /api/pick-list.pdf', () => {
     // A product whose first batch cannot cover the order alone: the order draws from two lots.
     const rose = await makeSellable(owner, { bars: 12, location: 'Rack E, shelf 3' })
     const later = await pourMore(owner, rose.productId, 30, 35, 'Rack F, shelf 1')
-    const a = await makeOrder({ shop: 'A', lines: [{ productId: rose.productId, cases: 3 }], status: 'confirmed' })
+    const a = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: rose.productId, cases: 3 }],
+      status: 'confirmed',
+    })
     const b = await makeOrder({
       shop: 'C',
       lines: [
@@ -140,7 +187,12 @@ describe('GET /api/pick-list and /api/pick-list.pdf', () => {
     expect(roseRow).toMatchObject({ bars: 24, cases: 4 })
     // 18 bars for order a: 12 from the older lot, 6 from the later one; order b's 6 from the later lot.
     expect(roseRow.lots).toEqual([
-      expect.objectContaining({ lotCode: rose.lotCode, location: 'Rack E, shelf 3', bars: 12, orders: [{ orderId: a.orderId, number: a.number, bars: 12 }] }),
+      expect.objectContaining({
+        lotCode: rose.lotCode,
+        location: 'Rack E, shelf 3',
+        bars: 12,
+        orders: [{ orderId: a.orderId, number: a.number, bars: 12 }],
+      }),
       expect.objectContaining({
         lotCode: later.lotCode,
         location: 'Rack F, shelf 1',
@@ -151,7 +203,10 @@ describe('GET /api/pick-list and /api/pick-list.pdf', () => {
         ],
       }),
     ])
-    expect(r.body.products.find((p: { sku: string }) => p.sku === cedar.sku)).toMatchObject({ bars: 12, cases: 2 })
+    expect(r.body.products.find((p: { sku: string }) => p.sku === cedar.sku)).toMatchObject({
+      bars: 12,
+      cases: 2,
+    })
     expect(r.body).toMatchObject({ totalBars: 36, totalCases: 6 })
     expect([...allKeys(r.body)].filter((k) => PRICE_KEY.test(k))).toEqual([])
 
@@ -163,20 +218,45 @@ describe('GET /api/pick-list and /api/pick-list.pdf', () => {
     expect(pdf.headers['content-type']).toMatch(/^application\/pdf/)
     keepPdf('pick-list.pdf', pdf.body as Buffer)
     const text = await pdfText(pdf.body as Buffer)
-    for (const s of [a.number, b.number, rose.sku, rose.lotCode, later.lotCode, 'Rack E, shelf 3', 'Rack F, shelf 1', cedar.lotCode]) {
+    for (const s of [
+      a.number,
+      b.number,
+      rose.sku,
+      rose.lotCode,
+      later.lotCode,
+      'Rack E, shelf 3',
+      'Rack F, shelf 1',
+      cedar.lotCode,
+    ]) {
       expect(text).toContain(s)
     }
     expect(text).not.toMatch(/\$\s?\d/)
   })
 
   it('refuses malformed, unknown and unpickable orders', async () => {
-    const shipped = await makeOrder({ shop: 'A', lines: [{ productId: lavender.productId, cases: 1 }], status: 'shipped', notify: false })
-    const placed = await makeOrder({ shop: 'A', lines: [{ productId: lavender.productId, cases: 1 }], status: 'placed' })
+    const shipped = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: lavender.productId, cases: 1 }],
+      status: 'shipped',
+      notify: false,
+    })
+    const placed = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: lavender.productId, cases: 1 }],
+      status: 'placed',
+    })
     const missing = await packer.get('/api/pick-list').expect(400)
     expect(missing.body.error.details[0].field).toBe('query.orders')
-    expect((await packer.get('/api/pick-list?orders=1,abc').expect(400)).body.error.details[0].field).toMatch(/^query\.orders/)
-    expect((await packer.get(`/api/pick-list?orders=${placed.orderId},${placed.orderId}`).expect(400)).body.error.details[0].field).toBe('query.orders')
-    expect((await packer.get('/api/pick-list?orders=99999998').expect(404)).body.error.details[0].field).toBe('orders')
+    expect((await packer.get('/api/pick-list?orders=1,abc').expect(400)).body.error.details[0].field).toMatch(
+      /^query\.orders/,
+    )
+    expect(
+      (await packer.get(`/api/pick-list?orders=${placed.orderId},${placed.orderId}`).expect(400)).body.error
+        .details[0].field,
+    ).toBe('query.orders')
+    expect((await packer.get('/api/pick-list?orders=99999998').expect(404)).body.error.details[0].field).toBe(
+      'orders',
+    )
     const wrong = await packer.get(`/api/pick-list?orders=${shipped.orderId},${placed.orderId}`).expect(409)
     expect(wrong.body.error.code).toBe('not_pickable')
     expect(wrong.body.error.details).toHaveLength(2)
@@ -198,7 +278,11 @@ describe('GET /api/orders/:id/packing-slip.pdf', () => {
       poNumber: 'JV-SLIP-0042',
     })
     for (const who of [packer, owner]) {
-      const r = await who.get(`/api/orders/${o.orderId}/packing-slip.pdf`).buffer(true).parse(binary).expect(200)
+      const r = await who
+        .get(`/api/orders/${o.orderId}/packing-slip.pdf`)
+        .buffer(true)
+        .parse(binary)
+        .expect(200)
       expect(r.headers['content-type']).toMatch(/^application\/pdf/)
       keepPdf('packing-slip.pdf', r.body as Buffer)
       const text = await pdfText(r.body as Buffer)
@@ -225,7 +309,11 @@ describe('GET /api/orders/:id/packing-slip.pdf', () => {
   })
 
   it('answers 404 for unknown orders and for a packer asking for a placed one; 401/403 otherwise', async () => {
-    const placed = await makeOrder({ shop: 'A', lines: [{ productId: lavender.productId, cases: 1 }], status: 'placed' })
+    const placed = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: lavender.productId, cases: 1 }],
+      status: 'placed',
+    })
     await packer.get('/api/orders/99999997/packing-slip.pdf').expect(404)
     await packer.get(`/api/orders/${placed.orderId}/packing-slip.pdf`).expect(404)
     await owner.get(`/api/orders/${placed.orderId}/packing-slip.pdf`).expect(200)
@@ -246,7 +334,10 @@ describe('POST /api/orders/:id/packed', () => {
       status: 'packing',
     })
     const view = await packer.get(`/api/packing/orders/${o.orderId}`).expect(200)
-    return { o, lines: view.body.order.lines as { orderLineId: number; bars: number; allocatedBars: number }[] }
+    return {
+      o,
+      lines: view.body.order.lines as { orderLineId: number; bars: number; allocatedBars: number }[],
+    }
   }
 
   it('records the cartons, the weight and the bars that match the allocations', async () => {
@@ -280,27 +371,47 @@ describe('POST /api/orders/:id/packed', () => {
     )
     expect(r.body.error.code).toBe('packed_mismatch')
     expect(r.body.error.details).toEqual([
-      expect.objectContaining({ field: 'lines.0.bars', orderLineId: lines[0]!.orderLineId, expectedBars: 6, packedBars: 5 }),
+      expect.objectContaining({
+        field: 'lines.0.bars',
+        orderLineId: lines[0]!.orderLineId,
+        expectedBars: 6,
+        packedBars: 5,
+      }),
       expect.objectContaining({ field: 'lines.1.orderLineId', orderLineId: 2147483000 }),
-      expect.objectContaining({ field: 'lines', orderLineId: lines[1]!.orderLineId, expectedBars: 6, packedBars: null }),
+      expect.objectContaining({
+        field: 'lines',
+        orderLineId: lines[1]!.orderLineId,
+        expectedBars: 6,
+        packedBars: null,
+      }),
     ])
     expect(await orderStatus(o.orderId)).toBe('packing')
     expect(await snapshot([lavender.batchId, cedar.batchId])).toEqual(before)
-    const [row] = await sequelize.query<{ cartons: number | null }>('SELECT cartons FROM orders WHERE id = $1', {
-      bind: [o.orderId],
-      type: QueryTypes.SELECT,
-    })
+    const [row] = await sequelize.query<{ cartons: number | null }>(
+      'SELECT cartons FROM orders WHERE id = $1',
+      {
+        bind: [o.orderId],
+        type: QueryTypes.SELECT,
+      },
+    )
     expect(row!.cartons).toBeNull()
   })
 
   it('refuses an order that is not being packed (409 invalid_transition)', async () => {
-    const o = await makeOrder({ shop: 'A', lines: [{ productId: lavender.productId, cases: 1 }], status: 'confirmed' })
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: lavender.productId, cases: 1 }],
+      status: 'confirmed',
+    })
     const view = await packer.get(`/api/packing/orders/${o.orderId}`).expect(200)
     const r = expectStatus(
       await packer.post(`/api/orders/${o.orderId}/packed`, {
         cartons: 1,
         weightG: 700,
-        lines: view.body.order.lines.map((l: { orderLineId: number; bars: number }) => ({ orderLineId: l.orderLineId, bars: l.bars })),
+        lines: view.body.order.lines.map((l: { orderLineId: number; bars: number }) => ({
+          orderLineId: l.orderLineId,
+          bars: l.bars,
+        })),
       }),
       409,
     )
@@ -318,7 +429,11 @@ describe('POST /api/orders/:id/packed', () => {
     )
     const other = await clientAs(app, 'anon')
     await other.login('ines.packer@brindlewick.test', 'second-packer-2026')
-    const body = { cartons: 1, weightG: 1000, lines: lines.map((l) => ({ orderLineId: l.orderLineId, bars: l.allocatedBars })) }
+    const body = {
+      cartons: 1,
+      weightG: 1000,
+      lines: lines.map((l) => ({ orderLineId: l.orderLineId, bars: l.allocatedBars })),
+    }
     const r = expectStatus(await other.post(`/api/orders/${o.orderId}/packed`, body), 409)
     expect(r.body.error).toMatchObject({ code: 'already_claimed' })
     expect(await orderStatus(o.orderId)).toBe('packing')
@@ -331,7 +446,10 @@ describe('POST /api/orders/:id/packed', () => {
       [{ cartons: 0, weightG: 100, lines: [{ orderLineId: lines[0]!.orderLineId, bars: 6 }] }, 'cartons'],
       [{ cartons: 1, weightG: -5, lines: [{ orderLineId: lines[0]!.orderLineId, bars: 6 }] }, 'weightG'],
       [{ cartons: 1, weightG: 100, lines: [] }, 'lines'],
-      [{ cartons: 1, weightG: 100, lines: [{ orderLineId: lines[0]!.orderLineId, bars: -1 }] }, 'lines.0.bars'],
+      [
+        { cartons: 1, weightG: 100, lines: [{ orderLineId: lines[0]!.orderLineId, bars: -1 }] },
+        'lines.0.bars',
+      ],
       [
         {
           cartons: 1,
@@ -356,15 +474,26 @@ describe('POST /api/orders/:id/packed', () => {
 
 describe('GET /api/packing/orders/:id', () => {
   it('shows the lines with their lots and locations and the ship-to, never a price', async () => {
-    const o = await makeOrder({ shop: 'C', lines: [{ productId: cedar.productId, cases: 1 }], status: 'confirmed' })
+    const o = await makeOrder({
+      shop: 'C',
+      lines: [{ productId: cedar.productId, cases: 1 }],
+      status: 'confirmed',
+    })
     const r = await packer.get(`/api/packing/orders/${o.orderId}`).expect(200)
     expect(r.body.order).toMatchObject({
       number: o.number,
       status: 'confirmed',
-      shipTo: { name: 'The Quiet Kettle', lines: expect.arrayContaining(['4100 Commerce Park Dr', 'Ridgeview, NY 12601']) },
+      shipTo: {
+        name: 'The Quiet Kettle',
+        lines: expect.arrayContaining(['4100 Commerce Park Dr', 'Ridgeview, NY 12601']),
+      },
       readyToPack: true,
     })
-    expect(r.body.order.lines[0]).toMatchObject({ sku: cedar.sku, bars: 6, lots: [{ lotCode: cedar.lotCode, location: 'Rack D, bin 4', bars: 6 }] })
+    expect(r.body.order.lines[0]).toMatchObject({
+      sku: cedar.sku,
+      bars: 6,
+      lots: [{ lotCode: cedar.lotCode, location: 'Rack D, bin 4', bars: 6 }],
+    })
     expect([...allKeys(r.body)].filter((k) => PRICE_KEY.test(k))).toEqual([])
     await buyer.get(`/api/packing/orders/${o.orderId}`).expect(403)
     await anon.get(`/api/packing/orders/${o.orderId}`).expect(401)

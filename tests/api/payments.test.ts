@@ -40,7 +40,13 @@ async function shippedInvoice(shop: ShopKey, opts: { daysAgo?: number; cases?: n
     `SELECT id, number, total_cents, due_date FROM invoices WHERE order_id = $1 AND kind = 'invoice'`,
     { bind: [o.orderId], type: QueryTypes.SELECT },
   )
-  return { ...o, invoiceId: inv!.id, invoiceNumber: inv!.number, totalCents: inv!.total_cents, dueDate: inv!.due_date }
+  return {
+    ...o,
+    invoiceId: inv!.id,
+    invoiceNumber: inv!.number,
+    totalCents: inv!.total_cents,
+    dueDate: inv!.due_date,
+  }
 }
 
 const pay = (who: ApiClient, invoiceId: number, body: Record<string, unknown>) =>
@@ -60,12 +66,35 @@ beforeAll(async () => {
 describe('POST /api/invoices/:id/payments', () => {
   it('takes a part payment, then the rest: part paid, then paid', async () => {
     const inv = await shippedInvoice('A')
-    const first = expectStatus(await pay(owner, inv.invoiceId, { amountCents: 10000, reference: 'ACH 55120' }), 201)
-    expect(first.body.payment).toMatchObject({ invoiceId: inv.invoiceId, method: 'bank_transfer', amountCents: 10000, reference: 'ACH 55120', recordedBy: 'Maren Oakes' })
-    expect(first.body.invoice).toMatchObject({ status: 'part_paid', paidCents: 10000, outstandingCents: inv.totalCents - 10000 })
-    const rest = expectStatus(await pay(owner, inv.invoiceId, { method: 'cheque', amountCents: inv.totalCents - 10000 }), 201)
-    expect(rest.body.invoice).toMatchObject({ status: 'paid', paidCents: inv.totalCents, outstandingCents: 0 })
-    expect(rest.body.invoice.payments.map((p: { amountCents: number }) => p.amountCents)).toEqual([10000, inv.totalCents - 10000])
+    const first = expectStatus(
+      await pay(owner, inv.invoiceId, { amountCents: 10000, reference: 'ACH 55120' }),
+      201,
+    )
+    expect(first.body.payment).toMatchObject({
+      invoiceId: inv.invoiceId,
+      method: 'bank_transfer',
+      amountCents: 10000,
+      reference: 'ACH 55120',
+      recordedBy: 'Maren Oakes',
+    })
+    expect(first.body.invoice).toMatchObject({
+      status: 'part_paid',
+      paidCents: 10000,
+      outstandingCents: inv.totalCents - 10000,
+    })
+    const rest = expectStatus(
+      await pay(owner, inv.invoiceId, { method: 'cheque', amountCents: inv.totalCents - 10000 }),
+      201,
+    )
+    expect(rest.body.invoice).toMatchObject({
+      status: 'paid',
+      paidCents: inv.totalCents,
+      outstandingCents: 0,
+    })
+    expect(rest.body.invoice.payments.map((p: { amountCents: number }) => p.amountCents)).toEqual([
+      10000,
+      inv.totalCents - 10000,
+    ])
   })
 
   it('refuses more than is owed (422 overpayment on amountCents) and writes nothing', async () => {
@@ -74,16 +103,23 @@ describe('POST /api/invoices/:id/payments', () => {
     const before = await snapshot()
     const r = expectStatus(await pay(owner, inv.invoiceId, { amountCents: inv.totalCents - 5000 + 1 }), 422)
     expect(r.body.error.code).toBe('overpayment')
-    expect(r.body.error.details[0]).toMatchObject({ field: 'amountCents', outstandingCents: inv.totalCents - 5000 })
+    expect(r.body.error.details[0]).toMatchObject({
+      field: 'amountCents',
+      outstandingCents: inv.totalCents - 5000,
+    })
     expect(await snapshot()).toEqual(before)
     // Paid in full, any further amount is too much.
     expectStatus(await pay(owner, inv.invoiceId, { amountCents: inv.totalCents - 5000 }), 201)
-    expect(expectStatus(await pay(owner, inv.invoiceId, { amountCents: 1 }), 422).body.error.code).toBe('overpayment')
+    expect(expectStatus(await pay(owner, inv.invoiceId, { amountCents: 1 }), 422).body.error.code).toBe(
+      'overpayment',
+    )
   })
 
   it('lets two payments for the whole amount race: one is taken, the other refused', async () => {
     const inv = await shippedInvoice('A')
-    const results = await Promise.all([1, 2].map(() => pay(owner, inv.invoiceId, { amountCents: inv.totalCents })))
+    const results = await Promise.all(
+      [1, 2].map(() => pay(owner, inv.invoiceId, { amountCents: inv.totalCents })),
+    )
     expect(results.map((r) => r.status).sort()).toEqual([201, 422])
     const [row] = await sequelize.query<{ paid_cents: number; n: number }>(
       'SELECT paid_cents, (SELECT count(*)::int FROM payments WHERE invoice_id = $1) AS n FROM invoices WHERE id = $1',
@@ -114,10 +150,17 @@ describe('POST /api/invoices/:id/payments', () => {
 
   it('refuses payments on a void invoice or a credit note (409)', async () => {
     const inv = await shippedInvoice('A')
-    const v = expectStatus(await owner.post(`/api/invoices/${inv.invoiceId}/void`, { reason: 'Sent twice' }), 200)
+    const v = expectStatus(
+      await owner.post(`/api/invoices/${inv.invoiceId}/void`, { reason: 'Sent twice' }),
+      200,
+    )
     const before = await snapshot()
-    expect(expectStatus(await pay(owner, inv.invoiceId, { amountCents: 100 }), 409).body.error.code).toBe('not_payable')
-    expect(expectStatus(await pay(owner, v.body.creditNote.id, { amountCents: 100 }), 409).body.error.code).toBe('not_payable')
+    expect(expectStatus(await pay(owner, inv.invoiceId, { amountCents: 100 }), 409).body.error.code).toBe(
+      'not_payable',
+    )
+    expect(
+      expectStatus(await pay(owner, v.body.creditNote.id, { amountCents: 100 }), 409).body.error.code,
+    ).toBe('not_payable')
     expect(await snapshot()).toEqual(before)
   })
 
@@ -133,22 +176,60 @@ describe('POST /api/invoices/:id/payments', () => {
 describe('GET /api/payments and /api/payments.csv', () => {
   it('lists payments with filters and exports them', async () => {
     const inv = await shippedInvoice('C')
-    expectStatus(await pay(owner, inv.invoiceId, { method: 'card', amountCents: 4321, reference: '=SUM(A1)' }), 201)
+    expectStatus(
+      await pay(owner, inv.invoiceId, { method: 'card', amountCents: 4321, reference: '=SUM(A1)' }),
+      201,
+    )
     const r = expectStatus(await owner.get(`/api/payments?invoiceId=${inv.invoiceId}`), 200)
     expect(r.body.items).toEqual([
-      expect.objectContaining({ invoiceNumber: inv.invoiceNumber, orderNumber: inv.number, shopName: 'The Quiet Kettle', method: 'card', amountCents: 4321, receivedOn: today }),
+      expect.objectContaining({
+        invoiceNumber: inv.invoiceNumber,
+        orderNumber: inv.number,
+        shopName: 'The Quiet Kettle',
+        method: 'card',
+        amountCents: 4321,
+        receivedOn: today,
+      }),
     ])
-    const cards = expectStatus(await owner.get(`/api/payments?method=card&shopId=${inv.shopId}&from=${today}&to=${today}`), 200)
-    expect(cards.body.items.every((p: { method: string; shopId: number }) => p.method === 'card' && p.shopId === inv.shopId)).toBe(true)
+    const cards = expectStatus(
+      await owner.get(`/api/payments?method=card&shopId=${inv.shopId}&from=${today}&to=${today}`),
+      200,
+    )
+    expect(
+      cards.body.items.every(
+        (p: { method: string; shopId: number }) => p.method === 'card' && p.shopId === inv.shopId,
+      ),
+    ).toBe(true)
 
     const csv = expectStatus(await owner.get(`/api/payments.csv?invoiceId=${inv.invoiceId}`), 200)
     expect(csv.headers['content-type']).toMatch(/^text\/csv/)
     expect(csv.headers['content-disposition']).toMatch(/^attachment; filename="payments-/)
     const [header, row] = parseCsv(csv.text).map((x) => x.fields)
-    expect(header).toEqual(['Received on', 'Invoice', 'Shop', 'Order', 'Method', 'Amount', 'Reference', 'Recorded by', 'Recorded at'])
-    expect(row!.slice(0, 8)).toEqual([today, inv.invoiceNumber, 'The Quiet Kettle', inv.number, 'Card', '43.21', `'=SUM(A1)`, 'Maren Oakes'])
+    expect(header).toEqual([
+      'Received on',
+      'Invoice',
+      'Shop',
+      'Order',
+      'Method',
+      'Amount',
+      'Reference',
+      'Recorded by',
+      'Recorded at',
+    ])
+    expect(row!.slice(0, 8)).toEqual([
+      today,
+      inv.invoiceNumber,
+      'The Quiet Kettle',
+      inv.number,
+      'Card',
+      '43.21',
+      `'=SUM(A1)`,
+      'Maren Oakes',
+    ])
 
-    expect(expectStatus(await owner.get('/api/payments?method=gold'), 400).body.error.details[0].field).toBe('query.method')
+    expect(expectStatus(await owner.get('/api/payments?method=gold'), 400).body.error.details[0].field).toBe(
+      'query.method',
+    )
     expectStatus(await buyer.get('/api/payments'), 403)
     expectStatus(await packer.get('/api/payments.csv'), 403)
     expectStatus(await anon.get('/api/payments'), 401)
@@ -162,7 +243,10 @@ describe('GET /api/receivables', () => {
     const a45 = await shippedInvoice('A', { daysAgo: 45 })
     // Net 30 issued 100 days ago, part paid: due 70 days ago → 61–90, only the rest counts.
     const a100 = await shippedInvoice('A', { daysAgo: 100 })
-    expectStatus(await pay(owner, a100.invoiceId, { amountCents: 3000, receivedOn: addDays(today, -20) }), 201)
+    expectStatus(
+      await pay(owner, a100.invoiceId, { amountCents: 3000, receivedOn: addDays(today, -20) }),
+      201,
+    )
     // Net 15 (shop C) issued 60 days ago: due 45 days ago → 31–60; issued 130 days ago: due 115 ago → over 90.
     const c60 = await shippedInvoice('C', { daysAgo: 60 })
     const c130 = await shippedInvoice('C', { daysAgo: 130 })
@@ -178,7 +262,13 @@ describe('GET /api/receivables', () => {
     const delta = (bucket: string) =>
       after.buckets.find((b: { bucket: string }) => b.bucket === bucket).cents -
       before.buckets.find((b: { bucket: string }) => b.bucket === bucket).cents
-    expect(after.buckets.map((b: { bucket: string }) => b.bucket)).toEqual(['current', '1_30', '31_60', '61_90', 'over_90'])
+    expect(after.buckets.map((b: { bucket: string }) => b.bucket)).toEqual([
+      'current',
+      '1_30',
+      '31_60',
+      '61_90',
+      'over_90',
+    ])
     expect(delta('current')).toBe(cNow.totalCents)
     expect(delta('1_30')).toBe(a45.totalCents)
     expect(delta('31_60')).toBe(c60.totalCents)
@@ -192,11 +282,19 @@ describe('GET /api/receivables', () => {
 
     // Per shop: the buckets add up to the shop's total, and the shops to the whole.
     for (const shop of after.shops) {
-      expect(Object.values(shop.byBucket as Record<string, number>).reduce((n, c) => n + c, 0)).toBe(shop.outstandingCents)
+      expect(Object.values(shop.byBucket as Record<string, number>).reduce((n, c) => n + c, 0)).toBe(
+        shop.outstandingCents,
+      )
     }
-    expect(after.shops.reduce((n: number, s: { outstandingCents: number }) => n + s.outstandingCents, 0)).toBe(after.outstandingCents)
+    expect(
+      after.shops.reduce((n: number, s: { outstandingCents: number }) => n + s.outstandingCents, 0),
+    ).toBe(after.outstandingCents)
     const kettle = after.shops.find((s: { shopId: number }) => s.shopId === c130.shopId)
-    expect(kettle).toMatchObject({ shopName: 'The Quiet Kettle', terms: 'net_15', oldestDueDate: c130.dueDate })
+    expect(kettle).toMatchObject({
+      shopName: 'The Quiet Kettle',
+      terms: 'net_15',
+      oldestDueDate: c130.dueDate,
+    })
     expect(kettle.byBucket.over_90).toBeGreaterThanOrEqual(c130.totalCents)
   })
 
@@ -214,34 +312,56 @@ describe('overdue reminders', () => {
     const first = await sendOverdueReminders(today)
     expect(first.sent.map((s) => s.invoiceId)).toContain(late.invoiceId)
     expect(first.sent.map((s) => s.invoiceId)).not.toContain(notYet.invoiceId)
-    const mail = await waitForMail(late.buyerEmail, new RegExp(`Reminder: invoice ${late.invoiceNumber} is 10 days overdue`))
-    expect(mail.attachments?.[0]).toMatchObject({ contentType: 'application/pdf', filename: `invoice-${late.invoiceNumber}.pdf` })
+    const mail = await waitForMail(
+      late.buyerEmail,
+      new RegExp(`Reminder: invoice ${late.invoiceNumber} is 10 days overdue`),
+    )
+    expect(mail.attachments?.[0]).toMatchObject({
+      contentType: 'application/pdf',
+      filename: `invoice-${late.invoiceNumber}.pdf`,
+    })
 
     const count = async () =>
-      (await sequelize.query<{ n: number }>('SELECT count(*)::int AS n FROM invoice_reminders WHERE invoice_id = $1', {
-        bind: [late.invoiceId],
-        type: QueryTypes.SELECT,
-      }))[0]!.n
+      (
+        await sequelize.query<{ n: number }>(
+          'SELECT count(*)::int AS n FROM invoice_reminders WHERE invoice_id = $1',
+          {
+            bind: [late.invoiceId],
+            type: QueryTypes.SELECT,
+          },
+        )
+      )[0]!.n
     expect(await count()).toBe(1)
     // The same day again, and six days later: nothing more. Seven days later: the next one.
     expect((await sendOverdueReminders(today)).sent.map((s) => s.invoiceId)).not.toContain(late.invoiceId)
-    expect((await sendOverdueReminders(addDays(today, 6))).sent.map((s) => s.invoiceId)).not.toContain(late.invoiceId)
+    expect((await sendOverdueReminders(addDays(today, 6))).sent.map((s) => s.invoiceId)).not.toContain(
+      late.invoiceId,
+    )
     expect(await count()).toBe(1)
-    expect((await sendOverdueReminders(addDays(today, 7))).sent.map((s) => s.invoiceId)).toContain(late.invoiceId)
+    expect((await sendOverdueReminders(addDays(today, 7))).sent.map((s) => s.invoiceId)).toContain(
+      late.invoiceId,
+    )
     expect(await count()).toBe(2)
 
     // Once paid, no more reminders.
     expectStatus(await pay(owner, late.invoiceId, { amountCents: late.totalCents }), 201)
-    expect((await sendOverdueReminders(addDays(today, 14))).sent.map((s) => s.invoiceId)).not.toContain(late.invoiceId)
+    expect((await sendOverdueReminders(addDays(today, 14))).sent.map((s) => s.invoiceId)).not.toContain(
+      late.invoiceId,
+    )
   })
 
   it('POST /api/invoices/:id/remind sends one now, refuses within 7 days and when nothing is owed', async () => {
     const open = await shippedInvoice('C', { daysAgo: 20 })
     const r = expectStatus(await owner.post(`/api/invoices/${open.invoiceId}/remind`), 200)
     expect(r.body.reminder).toMatchObject({ invoiceId: open.invoiceId, sentOn: today })
-    await waitForMail(open.buyerEmail, new RegExp(`Reminder: invoice ${open.invoiceNumber} is 5 days overdue`))
+    await waitForMail(
+      open.buyerEmail,
+      new RegExp(`Reminder: invoice ${open.invoiceNumber} is 5 days overdue`),
+    )
     const detail = (await owner.get(`/api/invoices/${open.invoiceId}`)).body.invoice
-    expect(detail.reminders).toEqual([expect.objectContaining({ sentOn: today, source: 'owner', sentBy: 'Maren Oakes' })])
+    expect(detail.reminders).toEqual([
+      expect.objectContaining({ sentOn: today, source: 'owner', sentBy: 'Maren Oakes' }),
+    ])
 
     const before = await snapshot()
     const again = expectStatus(await owner.post(`/api/invoices/${open.invoiceId}/remind`), 409)
@@ -251,7 +371,9 @@ describe('overdue reminders', () => {
     const settled = await shippedInvoice('C')
     expectStatus(await pay(owner, settled.invoiceId, { amountCents: settled.totalCents }), 201)
     const mid = await snapshot()
-    expect(expectStatus(await owner.post(`/api/invoices/${settled.invoiceId}/remind`), 409).body.error.code).toBe('nothing_owed')
+    expect(
+      expectStatus(await owner.post(`/api/invoices/${settled.invoiceId}/remind`), 409).body.error.code,
+    ).toBe('nothing_owed')
     expect((await snapshot()).counts.reminders).toBe(mid.counts.reminders)
     expect(before.counts.reminders).toBe(mid.counts.reminders)
 
@@ -260,6 +382,8 @@ describe('overdue reminders', () => {
     expectStatus(await anon.post(`/api/invoices/${open.invoiceId}/remind`), 401)
     expectStatus(await owner.post('/api/invoices/99999999/remind'), 404)
     await mailQueueIdle()
-    expect((await allMail()).filter((m) => m.subject.includes(`invoice ${settled.invoiceNumber} is`))).toEqual([])
+    expect(
+      (await allMail()).filter((m) => m.subject.includes(`invoice ${settled.invoiceNumber} is`)),
+    ).toEqual([])
   })
 })

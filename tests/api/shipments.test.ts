@@ -16,7 +16,8 @@ import { clientAs } from '@tests/factories/api-client'
 import { expectStatus } from '@tests/factories/responses'
 import type { ApiClient } from '@tests/factories/api-client'
 import { allMail, waitForMail } from '@tests/factories/mail'
-import { makeOrder, makeSellable, orderStatus, snapshot } from '@tests/factories/fulfilment'
+import { makeOrder, makeSellable, orderStatus, snapshot, staff } from '@tests/factories/fulfilment'
+import { confirmOrder } from '@server/modules/orders/order-changes.service'
 import type { Sellable } from '@tests/factories/fulfilment'
 
 const app = createApp({ pruneSessions: false })
@@ -27,12 +28,25 @@ let anon: ApiClient
 let soap: Sellable
 let today: string
 
-
 const ship = (who: ApiClient, orderId: number, body: Record<string, unknown> = {}) =>
-  who.post(`/api/orders/${orderId}/ship`, { carrier: 'UPS', trackingNumber: '1Z999AA10123456784', shipDate: today, ...body })
+  who.post(`/api/orders/${orderId}/ship`, {
+    carrier: 'UPS',
+    trackingNumber: '1Z999AA10123456784',
+    shipDate: today,
+    ...body,
+  })
 
 async function invoiceOf(orderId: number) {
-  return sequelize.query<{ id: number; number: string; seq: number; year: number; issue_date: string; due_date: string; terms: string; total_cents: number }>(
+  return sequelize.query<{
+    id: number
+    number: string
+    seq: number
+    year: number
+    issue_date: string
+    due_date: string
+    terms: string
+    total_cents: number
+  }>(
     `SELECT id, number, seq, year, issue_date, due_date, terms, total_cents FROM invoices WHERE order_id = $1 AND kind = 'invoice'`,
     { bind: [orderId], type: QueryTypes.SELECT },
   )
@@ -51,12 +65,26 @@ beforeAll(async () => {
 
 describe('POST /api/orders/:id/ship', () => {
   it('ships a packed order: shipment, shipped moves, status, and an invoice due 30 days later on net 30', async () => {
-    const o = await makeOrder({ shop: 'A', lines: [{ productId: soap.productId, cases: 2 }], status: 'packed', poNumber: 'JV-SHIP-7781' })
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: soap.productId, cases: 2 }],
+      status: 'packed',
+      poNumber: 'JV-SHIP-7781',
+    })
     const before = await snapshot([soap.batchId])
-    const r = expectStatus(await ship(packer, o.orderId, { carrier: 'UPS', trackingNumber: '1Z 9A7 F22 0345 6789' }), 200)
+    const r = expectStatus(
+      await ship(packer, o.orderId, { carrier: 'UPS', trackingNumber: '1Z 9A7 F22 0345 6789' }),
+      200,
+    )
     expect(r.body).toMatchObject({
       order: { id: o.orderId, number: o.number, status: 'shipped' },
-      shipment: { carrier: 'UPS', trackingNumber: '1Z 9A7 F22 0345 6789', shipDate: today, cartons: 1, weightG: 2500 },
+      shipment: {
+        carrier: 'UPS',
+        trackingNumber: '1Z 9A7 F22 0345 6789',
+        shipDate: today,
+        cartons: 1,
+        weightG: 2500,
+      },
       invoice: { raisedNow: true },
     })
     expect(await orderStatus(o.orderId)).toBe('shipped')
@@ -65,7 +93,12 @@ describe('POST /api/orders/:id/ship', () => {
     const after = await snapshot([soap.batchId])
     expect(after.stock[0]).toEqual({ ...before.stock[0], reserved: before.stock[0]!.reserved - 12 })
     expect(after.counts.shipments).toBe(before.counts.shipments + 1)
-    const moves = await sequelize.query<{ kind: string; bars: number; free_delta: number; reserved_delta: number }>(
+    const moves = await sequelize.query<{
+      kind: string
+      bars: number
+      free_delta: number
+      reserved_delta: number
+    }>(
       `SELECT kind, bars, free_delta, reserved_delta FROM stock_moves WHERE order_id = $1 AND kind = 'shipped'`,
       { bind: [o.orderId], type: QueryTypes.SELECT },
     )
@@ -73,28 +106,53 @@ describe('POST /api/orders/:id/ship', () => {
 
     // Net 30: due 30 days after the invoice date (REFERENCES.md, common practice).
     const [inv] = await invoiceOf(o.orderId)
-    expect(inv).toMatchObject({ number: r.body.invoice.number, issue_date: today, terms: 'net_30', due_date: addDays(today, 30) })
+    expect(inv).toMatchObject({
+      number: r.body.invoice.number,
+      issue_date: today,
+      terms: 'net_30',
+      due_date: addDays(today, 30),
+    })
     expect(inv!.due_date).toBe(dueDate(today, 'net_30'))
     expect(parseInvoiceNumber(inv!.number, 'LC')).toEqual({ year: yearOf(today), seq: inv!.seq })
   })
 
   it('e-mails the buyer the tracking number with the packing slip PDF, and the invoice PDF', async () => {
-    const o = await makeOrder({ shop: 'A', lines: [{ productId: soap.productId, cases: 1 }], status: 'packed' })
-    const r = expectStatus(await ship(owner, o.orderId, { carrier: 'FedEx', trackingNumber: 'FX-7730-1155' }), 200)
-    const shipped = await waitForMail(o.buyerEmail, new RegExp(`Order ${o.number} has shipped: FedEx FX-7730-1155`))
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: soap.productId, cases: 1 }],
+      status: 'packed',
+    })
+    const r = expectStatus(
+      await ship(owner, o.orderId, { carrier: 'FedEx', trackingNumber: 'FX-7730-1155' }),
+      200,
+    )
+    const shipped = await waitForMail(
+      o.buyerEmail,
+      new RegExp(`Order ${o.number} has shipped: FedEx FX-7730-1155`),
+    )
     expect(shipped.text).toContain('Tracking number: FX-7730-1155')
     expect(shipped.attachments).toEqual([
       expect.objectContaining({ contentType: 'application/pdf', filename: `packing-slip-${o.number}.pdf` }),
     ])
-    const invoice = await waitForMail(o.buyerEmail, new RegExp(`Invoice ${r.body.invoice.number} from Brindlewick Soapery`))
+    const invoice = await waitForMail(
+      o.buyerEmail,
+      new RegExp(`Invoice ${r.body.invoice.number} from Brindlewick Soapery`),
+    )
     expect(invoice.text).toContain(o.number)
     expect(invoice.attachments).toEqual([
-      expect.objectContaining({ contentType: 'application/pdf', filename: `invoice-${r.body.invoice.number}.pdf` }),
+      expect.objectContaining({
+        contentType: 'application/pdf',
+        filename: `invoice-${r.body.invoice.number}.pdf`,
+      }),
     ])
   })
 
   it('refuses an order that is not packed (409 invalid_transition) and writes nothing', async () => {
-    const o = await makeOrder({ shop: 'C', lines: [{ productId: soap.productId, cases: 1 }], status: 'packing' })
+    const o = await makeOrder({
+      shop: 'C',
+      lines: [{ productId: soap.productId, cases: 1 }],
+      status: 'packing',
+    })
     const before = await snapshot([soap.batchId])
     const r = expectStatus(await ship(packer, o.orderId), 409)
     expect(r.body.error.code).toBe('invalid_transition')
@@ -106,14 +164,23 @@ describe('POST /api/orders/:id/ship', () => {
   })
 
   it('refuses a shipped order a second time (409) with nothing written', async () => {
-    const o = await makeOrder({ shop: 'A', lines: [{ productId: soap.productId, cases: 1 }], status: 'shipped', notify: false })
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: soap.productId, cases: 1 }],
+      status: 'shipped',
+      notify: false,
+    })
     const before = await snapshot([soap.batchId])
     expect(expectStatus(await ship(packer, o.orderId), 409).body.error.code).toBe('invalid_transition')
     expect(await snapshot([soap.batchId])).toEqual(before)
   })
 
   it('checks the carrier, tracking number and date (400 with the field), and its callers', async () => {
-    const o = await makeOrder({ shop: 'A', lines: [{ productId: soap.productId, cases: 1 }], status: 'packed' })
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: soap.productId, cases: 1 }],
+      status: 'packed',
+    })
     const before = await snapshot([soap.batchId])
     const cases: [Record<string, unknown>, string][] = [
       [{ carrier: '' }, 'carrier'],
@@ -136,33 +203,60 @@ describe('POST /api/orders/:id/ship', () => {
   })
 
   it('does not raise a second invoice for a prepay order invoiced at confirmation', async () => {
-    const o = await makeOrder({ shop: 'B', lines: [{ productId: soap.productId, cases: 1 }], status: 'confirmed' })
-    // The hook the orders module calls when it confirms an order.
-    const raised = await sequelize.transaction((t) => raiseInvoiceForOrder(o.orderId, t, { notify: false }))
-    expect(raised).toMatchObject({ orderId: o.orderId })
+    const o = await makeOrder({
+      shop: 'B',
+      lines: [{ productId: soap.productId, cases: 1 }],
+      status: 'confirmed',
+    })
+    // Confirming the order of a prepay account raised its invoice in the same transaction.
     const [prepay] = await invoiceOf(o.orderId)
+    expect(await invoiceOf(o.orderId)).toHaveLength(1)
     expect(prepay).toMatchObject({ terms: 'prepay', due_date: today })
 
     expectStatus(await packer.post(`/api/orders/${o.orderId}/claim`, {}), 200)
-    const lines = (await packer.get(`/api/packing/orders/${o.orderId}`)).body.order.lines as { orderLineId: number; bars: number }[]
-    expectStatus(await packer.post(`/api/orders/${o.orderId}/packed`, { cartons: 1, weightG: 800, lines: lines.map((l) => ({ orderLineId: l.orderLineId, bars: l.bars })) }), 200)
+    const lines = (await packer.get(`/api/packing/orders/${o.orderId}`)).body.order.lines as {
+      orderLineId: number
+      bars: number
+    }[]
+    expectStatus(
+      await packer.post(`/api/orders/${o.orderId}/packed`, {
+        cartons: 1,
+        weightG: 800,
+        lines: lines.map((l) => ({ orderLineId: l.orderLineId, bars: l.bars })),
+      }),
+      200,
+    )
     const r = expectStatus(await ship(packer, o.orderId), 200)
     expect(r.body.invoice).toEqual({ id: prepay!.id, number: prepay!.number, raisedNow: false })
     expect(await invoiceOf(o.orderId)).toHaveLength(1)
   })
 
   it('answers null from the confirmation hook for an account on net terms (invoiced when it ships)', async () => {
-    const o = await makeOrder({ shop: 'C', lines: [{ productId: soap.productId, cases: 1 }], status: 'confirmed' })
+    const o = await makeOrder({
+      shop: 'C',
+      lines: [{ productId: soap.productId, cases: 1 }],
+      status: 'confirmed',
+    })
     const before = await snapshot()
-    expect(await sequelize.transaction((t) => raiseInvoiceForOrder(o.orderId, t, { notify: false }))).toBeNull()
+    expect(
+      await sequelize.transaction((t) => raiseInvoiceForOrder(o.orderId, t, { notify: false })),
+    ).toBeNull()
     expect(await snapshot()).toEqual(before)
   })
 
   it('gives the number back when the issuing transaction rolls back: the series stays gapless', async () => {
-    const other = await makeOrder({ shop: 'B', lines: [{ productId: soap.productId, cases: 1 }], status: 'confirmed' })
+    const other = await makeOrder({
+      shop: 'B',
+      lines: [{ productId: soap.productId, cases: 1 }],
+      status: 'placed',
+    })
     const before = await snapshot()
     await expect(
       sequelize.transaction(async (t) => {
+        await sequelize.query(`UPDATE orders SET status = 'confirmed' WHERE id = $1`, {
+          bind: [other.orderId],
+          transaction: t,
+        })
         await raiseInvoiceForOrder(other.orderId, t, { notify: false })
         throw new Error('the caller failed after the invoice was numbered')
       }),
@@ -170,38 +264,53 @@ describe('POST /api/orders/:id/ship', () => {
     expect(await snapshot()).toEqual(before)
     expect(await invoiceOf(other.orderId)).toEqual([])
     // The next invoice takes the number the rolled-back one had held.
-    const next = await sequelize.transaction((t) => raiseInvoiceForOrder(other.orderId, t, { notify: false }))
+    const studio = await staff('owner')
+    await confirmOrder(other.orderId, { role: 'owner', shopId: null, userId: studio.id }, { notify: false })
+    const [next] = await invoiceOf(other.orderId)
     expect(parseInvoiceNumber(next!.number, 'LC')!.seq).toBe(before.counts.last_seq + 1)
   })
 
-  it('20 shipments at once get consecutive invoice numbers: no gap, no duplicate', { timeout: 180_000 }, async () => {
-    const made = performance.now()
-    const orders = []
-    for (let i = 0; i < 20; i++) {
-      orders.push(await makeOrder({ shop: (['A', 'B', 'C'] as const)[i % 3]!, lines: [{ productId: soap.productId, cases: 1 }], status: 'packed' }))
-    }
-    console.info(`20 packed orders made in ${Math.round(performance.now() - made)} ms`)
-    const before = await snapshot([soap.batchId])
-    const started = performance.now()
-    const results = await Promise.all(
-      orders.map((o, i) => ship(i % 2 ? owner : packer, o.orderId, { trackingNumber: `RACE-${i}` })),
-    )
-    const ms = performance.now() - started
-    expect(results.map((r) => r.status)).toEqual(orders.map(() => 200))
-    const seqs = results.map((r) => parseInvoiceNumber(r.body.invoice.number, 'LC')!.seq).sort((a, b) => a - b)
-    expect(new Set(seqs).size).toBe(20)
-    expect(seqs.at(-1)! - seqs[0]!).toBe(19)
-    expect(seqs[0]).toBe(before.counts.last_seq + 1)
+  it(
+    '20 shipments at once get consecutive invoice numbers: no gap, no duplicate',
+    { timeout: 180_000 },
+    async () => {
+      const made = performance.now()
+      const orders = []
+      for (let i = 0; i < 20; i++) {
+        orders.push(
+          await makeOrder({
+            // Accounts on net terms: each shipment raises its invoice (a prepay one has it already).
+            shop: (['A', 'C'] as const)[i % 2]!,
+            lines: [{ productId: soap.productId, cases: 1 }],
+            status: 'packed',
+          }),
+        )
+      }
+      console.info(`20 packed orders made in ${Math.round(performance.now() - made)} ms`)
+      const before = await snapshot([soap.batchId])
+      const started = performance.now()
+      const results = await Promise.all(
+        orders.map((o, i) => ship(i % 2 ? owner : packer, o.orderId, { trackingNumber: `RACE-${i}` })),
+      )
+      const ms = performance.now() - started
+      expect(results.map((r) => r.status)).toEqual(orders.map(() => 200))
+      const seqs = results
+        .map((r) => parseInvoiceNumber(r.body.invoice.number, 'LC')!.seq)
+        .sort((a, b) => a - b)
+      expect(new Set(seqs).size).toBe(20)
+      expect(seqs.at(-1)! - seqs[0]!).toBe(19)
+      expect(seqs[0]).toBe(before.counts.last_seq + 1)
 
-    const year = yearOf(today)
-    const all = await sequelize.query<{ seq: number }>('SELECT seq FROM invoices WHERE year = $1', {
-      bind: [year],
-      type: QueryTypes.SELECT,
-    })
-    expect(checkInvoiceSeries(all.map((r) => r.seq))).toEqual({ missing: [], duplicated: [] })
-    const after = await snapshot([soap.batchId])
-    expect(after.stock[0]!.reserved).toBe(before.stock[0]!.reserved - 20 * 6)
-    expect(after.counts.shipments).toBe(before.counts.shipments + 20)
-    console.info(`20 concurrent shipments took ${Math.round(ms)} ms`)
-  })
+      const year = yearOf(today)
+      const all = await sequelize.query<{ seq: number }>('SELECT seq FROM invoices WHERE year = $1', {
+        bind: [year],
+        type: QueryTypes.SELECT,
+      })
+      expect(checkInvoiceSeries(all.map((r) => r.seq))).toEqual({ missing: [], duplicated: [] })
+      const after = await snapshot([soap.batchId])
+      expect(after.stock[0]!.reserved).toBe(before.stock[0]!.reserved - 20 * 6)
+      expect(after.counts.shipments).toBe(before.counts.shipments + 20)
+      console.info(`20 concurrent shipments took ${Math.round(ms)} ms`)
+    },
+  )
 })

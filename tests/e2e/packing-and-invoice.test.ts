@@ -42,7 +42,13 @@ function keep(name: string, file: string) {
 }
 
 /** JSON calls with the page's own session (and its CSRF token for writes). */
-async function call(page: Page, method: 'GET' | 'POST', url: string, data?: unknown, headers: Record<string, string> = {}) {
+async function call(
+  page: Page,
+  method: 'GET' | 'POST',
+  url: string,
+  data?: unknown,
+  headers: Record<string, string> = {},
+) {
   const token = (await (await page.request.get('/api/auth/csrf')).json()).csrfToken as string
   const r = await page.request.fetch(url, { method, data, headers: { 'X-CSRF-Token': token, ...headers } })
   const body = await r.json().catch(() => null)
@@ -103,7 +109,10 @@ describe('the packer packs and ships; the buyer downloads the invoice', () => {
     await expect.poll(() => page.getByRole('heading', { level: 3, name: /UNS-XL/ }).isVisible()).toBe(true)
     await screenshot(page, 'packing-pick-list')
     // Print opens the PDF in a tab of its own; the download link saves it.
-    const [tab] = await Promise.all([context.waitForEvent('page'), page.getByRole('link', { name: /^Print pick list/ }).click()])
+    const [tab] = await Promise.all([
+      context.waitForEvent('page'),
+      page.getByRole('link', { name: /^Print pick list/ }).click(),
+    ])
     await expect.poll(() => tab.url()).toContain(`/api/pick-list.pdf?orders=${order!.id}`)
     const printed = await tab.request.get(tab.url())
     expect(printed.headers()['content-type']).toMatch(/^application\/pdf/)
@@ -124,7 +133,10 @@ describe('the packer packs and ships; the buyer downloads the invoice', () => {
     await page.getByRole('link', { name: order!.number }).first().click()
     await page.waitForURL(/\/packing\/orders\/\d+$/)
     await page.getByRole('heading', { level: 1, name: `Order ${order!.number}` }).waitFor()
-    await page.getByRole('list', { name: /Batch lots for UNS$/ }).getByText(/^\d{6}-UNS-\d{2}$/).waitFor()
+    await page
+      .getByRole('list', { name: /Batch lots for UNS$/ })
+      .getByText(/^\d{6}-UNS-\d{2}$/)
+      .waitFor()
     for (const sku of ['UNS', 'GCL', 'UNS-XL']) await page.getByLabel(new RegExp(`^Packed ${sku} `)).check()
     await page.getByLabel('Cartons').fill('2')
     await page.getByLabel('Packed weight (g)').fill('3400')
@@ -137,25 +149,49 @@ describe('the packer packs and ships; the buyer downloads the invoice', () => {
     // A wrong count is refused with the line at fault; the right one is recorded.
     await page.getByLabel(/^GCL · /).fill('9')
     await page.getByRole('button', { name: 'Record packed' }).click()
-    await expect.poll(() => page.getByText(/GCL: 10 bars are allocated/).first().isVisible()).toBe(true)
+    await expect
+      .poll(() =>
+        page
+          .getByText(/GCL: 10 bars are allocated/)
+          .first()
+          .isVisible(),
+      )
+      .toBe(true)
     await page.getByLabel(/^GCL · /).fill('10')
     await page.getByRole('button', { name: 'Record packed' }).click()
-    await expect.poll(() => page.getByText(`${order!.number} is packed. Ship it when the carrier comes.`).isVisible()).toBe(true)
+    await expect
+      .poll(() => page.getByText(`${order!.number} is packed. Ship it when the carrier comes.`).isVisible())
+      .toBe(true)
 
     await page.getByRole('heading', { level: 2, name: 'Ship', exact: true }).waitFor()
     await page.getByLabel('Carrier').fill('UPS')
     await page.getByLabel('Tracking number').fill('1Z E2E 4471 0098')
     await screenshot(page, 'packing-ship')
     await page.getByRole('button', { name: 'Ship order' }).click()
-    const shipped = page.getByText(new RegExp(`${order!.number} shipped\\. Invoice (\\S+) raised and sent\\.`))
+    const shipped = page.getByText(
+      new RegExp(`${order!.number} shipped\\. Invoice (\\S+) raised and sent\\.`),
+    )
     await expect.poll(() => shipped.isVisible(), { timeout: 15_000 }).toBe(true)
     invoiceNumber = /Invoice (\S+) raised/.exec((await shipped.textContent()) ?? '')![1]!
     await page.getByText('1Z E2E 4471 0098').waitFor()
     await screenshot(page, 'packing-shipped')
 
-    const mail = await waitForMail(DEMO.buyerA.email, new RegExp(`Order ${order!.number} has shipped: UPS 1Z E2E 4471 0098`))
+    const mail = await waitForMail(
+      DEMO.buyerA.email,
+      new RegExp(`Order ${order!.number} has shipped: UPS 1Z E2E 4471 0098`),
+    )
     expect(mail.attachments?.[0]?.contentType).toBe('application/pdf')
     await context.close()
+
+    // On a phone the queue still works: the table scrolls sideways inside its card.
+    const phone = await newPage(browser, { width: 375, height: 740 })
+    await signIn(phone.page, 'packer')
+    await phone.page.getByRole('heading', { level: 1, name: 'Packing' }).waitFor()
+    await phone.page.getByRole('heading', { level: 2, name: /Packed, waiting for the carrier/ }).waitFor()
+    await phone.page.waitForLoadState('networkidle')
+    expect(await axeViolations(phone.page)).toEqual([])
+    await screenshot(phone.page, 'packing-queue-phone')
+    await phone.context.close()
   })
 
   it('the buyer finds the invoice and downloads its PDF', async () => {
@@ -179,7 +215,14 @@ describe('the packer packs and ships; the buyer downloads the invoice', () => {
     const file = await download.path()
     keep('e2e-invoice.pdf', file)
     const text = await pdfText(file)
-    for (const s of [`Invoice ${invoiceNumber}`, order!.number, PO, 'Juniper & Vine Mercantile Co.', 'Net 30', 'Amount due']) {
+    for (const s of [
+      `Invoice ${invoiceNumber}`,
+      order!.number,
+      PO,
+      'Juniper & Vine Mercantile Co.',
+      'Net 30',
+      'Amount due',
+    ]) {
       expect(text).toContain(s)
     }
     expect(text).toMatch(/\$\d+\.\d{2}/)
@@ -206,13 +249,22 @@ describe('the packer packs and ships; the buyer downloads the invoice', () => {
     const dialog = page.getByRole('dialog', { name: `Record a payment on ${invoiceNumber}` })
     await dialog.getByLabel('Amount').fill('99999')
     await dialog.getByRole('button', { name: 'Record payment' }).click()
-    await expect.poll(() => dialog.getByText(/is owed on invoice/).first().isVisible()).toBe(true)
+    await expect
+      .poll(() =>
+        dialog
+          .getByText(/is owed on invoice/)
+          .first()
+          .isVisible(),
+      )
+      .toBe(true)
     await screenshot(page, 'owner-payment-refused')
     await dialog.getByLabel('Amount').fill('50.00')
     await dialog.getByLabel('Method').selectOption('cheque')
     await dialog.getByLabel(/Reference/).fill('Cheque 3310')
     await dialog.getByRole('button', { name: 'Record payment' }).click()
-    await expect.poll(() => page.getByText(`$50.00 recorded against ${invoiceNumber}.`).isVisible()).toBe(true)
+    await expect
+      .poll(() => page.getByText(`$50.00 recorded against ${invoiceNumber}.`).isVisible())
+      .toBe(true)
     await expect.poll(() => page.locator('header').getByText('Part paid').isVisible()).toBe(true)
     await page.getByText('Cheque 3310', { exact: false }).waitFor()
 

@@ -5,7 +5,8 @@ import { PDFParse } from 'pdf-parse'
 
 /** The response, after checking its status (its body is shown when the status differs). */
 export function expectStatus<R extends { status: number; body: unknown }>(r: R, expected: number): R {
-  if (r.status !== expected) throw new Error(`expected ${expected}, got ${r.status}: ${JSON.stringify(r.body)}`)
+  if (r.status !== expected)
+    throw new Error(`expected ${expected}, got ${r.status}: ${JSON.stringify(r.body)}`)
   return r
 }
 

@@ -32,11 +32,20 @@ export async function detail(req: Request, res: Response) {
 export async function pdf(req: Request, res: Response) {
   const invoice = await requireInvoice(params(req, InvoiceIdParamsSchema).id, viewer(req))
   const file = await renderInvoicePdf(invoice)
-  res.type('application/pdf').set('Content-Disposition', `inline; filename="${invoiceFilename(invoice)}"`).send(file)
+  res
+    .type('application/pdf')
+    .set('Content-Disposition', `inline; filename="${invoiceFilename(invoice)}"`)
+    .send(file)
 }
 
 export async function voidOne(req: Request, res: Response) {
-  res.json(await voidInvoice(params(req, InvoiceIdParamsSchema).id, body(req, VoidInvoiceSchema), currentUser(req).id))
+  res.json(
+    await voidInvoice(
+      params(req, InvoiceIdParamsSchema).id,
+      body(req, VoidInvoiceSchema),
+      currentUser(req).id,
+    ),
+  )
 }
 
 export async function send(req: Request, res: Response) {

@@ -15,7 +15,12 @@ export function invoicesRoutes() {
   r.get('/invoices.csv', manage, validate({ query: InvoiceListQuerySchema }), c.csv)
   r.get('/invoices/:id', view, one, c.detail)
   r.get('/invoices/:id/pdf', view, one, c.pdf)
-  r.post('/invoices/:id/void', manage, validate({ params: InvoiceIdParamsSchema, body: VoidInvoiceSchema }), c.voidOne)
+  r.post(
+    '/invoices/:id/void',
+    manage,
+    validate({ params: InvoiceIdParamsSchema, body: VoidInvoiceSchema }),
+    c.voidOne,
+  )
   r.post('/invoices/:id/send', manage, one, c.send)
   r.post('/orders/:id/invoice', manage, validate({ params: PackingOrderParamsSchema }), c.raise)
   return r

@@ -170,7 +170,13 @@ export async function raiseInvoiceForOrder(
     { bind: [id, order.id], transaction: t },
   )
   await audit(
-    { userId: opts.userId ?? null, action: 'invoice.raised', entity: 'invoice', entityId: id, data: { number, orderId } },
+    {
+      userId: opts.userId ?? null,
+      action: 'invoice.raised',
+      entity: 'invoice',
+      entityId: id,
+      data: { number, orderId },
+    },
     t,
   )
   if (opts.notify !== false) afterCommit(t, `invoice ${number}`, () => sendInvoiceMail(id, 'issued'))
@@ -181,7 +187,14 @@ function invoiceExists(orderNumber: string, existing: { id: number; number: stri
   return AppError.conflict(
     'invoice_exists',
     `Order ${orderNumber} already has invoice ${existing.number}; void it first to issue another.`,
-    [{ field: 'orderId', message: `Invoice ${existing.number} exists.`, invoiceId: existing.id, number: existing.number }],
+    [
+      {
+        field: 'orderId',
+        message: `Invoice ${existing.number} exists.`,
+        invoiceId: existing.id,
+        number: existing.number,
+      },
+    ],
   )
 }
 
@@ -298,6 +311,7 @@ export async function voidInvoiceForOrder(
   reason: string,
   userId: number | null,
   transaction: Transaction,
+  opts: { notify?: boolean } = {},
 ): Promise<{ invoiceId: number; creditNoteId: number; creditNoteNumber: string } | null> {
   const [inv] = await sequelize.query<LockedInvoice>(
     `SELECT id, number, kind, order_id, shop_id, paid_cents, voided_at FROM invoices
@@ -305,7 +319,7 @@ export async function voidInvoiceForOrder(
     { bind: [orderId], type: QueryTypes.SELECT, transaction },
   )
   if (!inv) return null
-  return voidLocked(inv, reason, userId, transaction, true)
+  return voidLocked(inv, reason, userId, transaction, opts.notify !== false)
 }
 
 export async function getInvoice(id: number, viewer: InvoiceViewer): Promise<InvoiceDto | null> {
@@ -320,7 +334,10 @@ export async function requireInvoice(id: number, viewer: InvoiceViewer): Promise
   return invoice
 }
 
-export async function invoiceList(viewer: InvoiceViewer, filter: InvoiceListQuery): Promise<InvoiceListItem[]> {
+export async function invoiceList(
+  viewer: InvoiceViewer,
+  filter: InvoiceListQuery,
+): Promise<InvoiceListItem[]> {
   return listInvoices(viewer, filter, await studioToday())
 }
 
@@ -329,7 +346,11 @@ export async function resendInvoice(id: number, userId: number): Promise<{ sentT
   const invoice = await requireInvoice(id, { role: 'owner', shopId: null })
   const sentTo = await sendInvoiceMail(invoice.id, invoice.kind === 'credit_note' ? 'credit_note' : 'resent')
   if (sentTo.length === 0) {
-    throw new AppError(502, 'mail_failed', 'The e-mail could not be sent. Check the mail settings and try again.')
+    throw new AppError(
+      502,
+      'mail_failed',
+      'The e-mail could not be sent. Check the mail settings and try again.',
+    )
   }
   await audit({ userId, action: 'invoice.sent', entity: 'invoice', entityId: id, data: { to: sentTo } })
   return { sentTo }

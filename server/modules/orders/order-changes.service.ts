@@ -21,6 +21,7 @@ import { orderingShop } from '@server/modules/orders/order-shop'
 import { insertLines, planStock, reserve } from '@server/modules/orders/orders.service'
 import { retryingTransaction } from '@server/modules/orders/transactions'
 import { getSettings } from '@server/modules/settings/settings.service'
+import { raiseInvoiceForOrder, voidInvoiceForOrder } from '@server/modules/invoices/invoices.service'
 
 export type Actor = OrderViewer & { userId: number }
 
@@ -96,6 +97,8 @@ export async function confirmOrder(id: number, actor: Actor, opts: ChangeOptions
     const status = transition(order.status, 'confirm', actor.role)
     await order.update({ status, confirmedAt: new Date(), confirmedBy: actor.userId }, { transaction: t })
     await audit({ userId: actor.userId, action: 'order.confirmed', entity: 'order', entityId: id }, t)
+    // A prepay account is invoiced at confirmation; for any other account this writes nothing.
+    await raiseInvoiceForOrder(id, t, { userId: actor.userId, notify: opts.notify })
   })
   if (opts.notify !== false) sendOrderMailsLater([{ kind: 'confirmed', orderId: id }])
   return afterChange(id, actor)
@@ -115,6 +118,10 @@ export async function cancelOrder(
     const order = await lockOrder(id, actor, t)
     const status = transition(order.status, 'cancel', actor.role)
     const bars = await release(id, null, actor.userId, t)
+    // A prepay invoice raised at confirmation is voided with a credit note (409 if money came in).
+    await voidInvoiceForOrder(id, reason?.trim() || `Order ${order.number} cancelled`, actor.userId, t, {
+      notify: opts.notify,
+    })
     await order.update(
       { status, cancelledAt: new Date(), cancelledBy: actor.userId, cancelReason: reason ?? null },
       { transaction: t },
@@ -324,6 +331,9 @@ export async function editOrderLines(
       },
       { transaction: t },
     )
+    // A prepay invoice already raised no longer matches: void it and raise one for the new lines.
+    const voided = await voidInvoiceForOrder(id, `Lines of order ${order.number} changed`, actor.userId, t)
+    if (voided) await raiseInvoiceForOrder(id, t, { userId: actor.userId, required: true })
     await audit(
       {
         userId: actor.userId,

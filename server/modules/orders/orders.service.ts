@@ -29,6 +29,7 @@ import { findOrder } from '@server/modules/orders/order-queries'
 import { orderingShop, taxExemptOn } from '@server/modules/orders/order-shop'
 import { promisePreorders } from '@server/modules/orders/preorders.service'
 import { isUniqueViolation, retryingTransaction } from '@server/modules/orders/transactions'
+import { raiseInvoiceForOrder } from '@server/modules/invoices/invoices.service'
 import { getSettings } from '@server/modules/settings/settings.service'
 import { isShopOrderable } from '@server/modules/shops/shops.service'
 
@@ -322,6 +323,8 @@ export async function placeOrder(args: {
         t,
       )
       await reserve(allocations, (i) => lineIds[i]!, order.id, userId, t)
+      // Confirmed at once: a prepay account's invoice is raised with it (nothing for other terms).
+      if (autoConfirm) await raiseInvoiceForOrder(order.id, t, { userId, notify: args.notify })
 
       if (isOpeningOrder) {
         await sequelize.query(

@@ -16,4 +16,5 @@ export async function renderPickListPdf(list: PickListDto): Promise<Buffer> {
   return renderPdf(pickListDocument({ studio: settings.studio, list, printedOn: today }))
 }
 
-export const packingSlipFilename = (order: Pick<PackingOrderDto, 'number'>) => `packing-slip-${order.number}.pdf`
+export const packingSlipFilename = (order: Pick<PackingOrderDto, 'number'>) =>
+  `packing-slip-${order.number}.pdf`

@@ -1,7 +1,13 @@
 import { QueryTypes } from 'sequelize'
 import type { Transaction } from 'sequelize'
 import type { OrderStatus } from '@shared/domain/orders/order-status'
-import type { PackingLine, PackingOrderDto, PackingQueueItem, PickListDto, PickProduct } from '@shared/schemas/packing'
+import type {
+  PackingLine,
+  PackingOrderDto,
+  PackingQueueItem,
+  PickListDto,
+  PickProduct,
+} from '@shared/schemas/packing'
 import { formatAddress } from '@shared/schemas/shops'
 import type { Address } from '@shared/schemas/shops'
 import { sequelize } from '@server/db/sequelize'
@@ -33,7 +39,10 @@ type QueueRow = {
 const iso = (d: Date | null) => (d ? d.toISOString() : null)
 
 /** Orders on the bench: confirmed and packing ones oldest first, then packed ones waiting to ship. */
-export async function packingQueue(): Promise<{ items: PackingQueueItem[]; awaitingShipment: PackingQueueItem[] }> {
+export async function packingQueue(): Promise<{
+  items: PackingQueueItem[]
+  awaitingShipment: PackingQueueItem[]
+}> {
   const rows = await sequelize.query<QueueRow>(
     `SELECT o.id, o.number, o.status, o.shop_id, s.trading_name AS shop_name, o.po_number, o.requested_ship_date,
             o.created_at, o.confirmed_at, o.packer_id, pk.name AS packer_name, o.packing_started_at, o.packed_at,
@@ -143,7 +152,10 @@ type OrderRow = {
 }
 
 /** The order as the packing bench sees it; null when there is no such order. */
-export async function packingOrder(orderId: number, transaction?: Transaction): Promise<PackingOrderDto | null> {
+export async function packingOrder(
+  orderId: number,
+  transaction?: Transaction,
+): Promise<PackingOrderDto | null> {
   const [o] = await sequelize.query<OrderRow>(
     `SELECT o.id, o.number, o.status, o.shop_id, s.trading_name AS shop_name, s.contact_name, s.contact_phone,
             s.shipping_address, o.po_number, o.note, o.requested_ship_date, o.created_at, o.packer_id,
@@ -217,7 +229,13 @@ type PickRow = {
  * its bars go to.
  */
 export async function pickList(
-  orders: { orderId: number; number: string; shopName: string; poNumber: string | null; status: OrderStatus }[],
+  orders: {
+    orderId: number
+    number: string
+    shopName: string
+    poNumber: string | null
+    status: OrderStatus
+  }[],
 ): Promise<PickListDto> {
   const ids = orders.map((o) => o.orderId)
   const rows = await sequelize.query<PickRow>(
@@ -235,13 +253,28 @@ export async function pickList(
   for (const r of rows) {
     let p = products.get(r.product_id)
     if (!p) {
-      p = { productId: r.product_id, sku: r.sku, name: r.name, casePack: r.case_pack, bars: 0, cases: 0, lots: [] }
+      p = {
+        productId: r.product_id,
+        sku: r.sku,
+        name: r.name,
+        casePack: r.case_pack,
+        bars: 0,
+        cases: 0,
+        lots: [],
+      }
       products.set(r.product_id, p)
     }
     p.bars += r.bars
     let lot = p.lots.find((x) => x.batchId === r.batch_id)
     if (!lot) {
-      lot = { batchId: r.batch_id, lotCode: r.lot_code, location: r.location, readyDate: r.ready_date, bars: 0, orders: [] }
+      lot = {
+        batchId: r.batch_id,
+        lotCode: r.lot_code,
+        location: r.location,
+        readyDate: r.ready_date,
+        bars: 0,
+        orders: [],
+      }
       p.lots.push(lot)
     }
     lot.bars += r.bars

@@ -47,14 +47,20 @@ export async function lockOrder(orderId: number, t: Transaction): Promise<Locked
  * The status an action leads to, or 409 `invalid_transition` naming the status the order is in
  * (the domain's rule; a wrong role for the step is a 403).
  */
-export function nextStatus(order: { number: string; status: OrderStatus }, action: OrderAction, user: PackingUser) {
+export function nextStatus(
+  order: { number: string; status: OrderStatus },
+  action: OrderAction,
+  user: PackingUser,
+) {
   try {
     return applyAction(order.status, action, user.role)
   } catch (err) {
     if (err instanceof DomainError && err.code === 'invalid_transition') {
-      throw AppError.conflict('invalid_transition', `Order ${order.number} is ${order.status}: ${describe(action)}`, [
-        { field: 'status', message: `The order is ${order.status}.`, status: order.status },
-      ])
+      throw AppError.conflict(
+        'invalid_transition',
+        `Order ${order.number} is ${order.status}: ${describe(action)}`,
+        [{ field: 'status', message: `The order is ${order.status}.`, status: order.status }],
+      )
     }
     if (err instanceof DomainError) throw AppError.forbidden(err.message)
     throw err
@@ -75,15 +81,19 @@ function describe(action: OrderAction): string {
 }
 
 function alreadyClaimed(o: LockedOrder) {
-  return AppError.conflict('already_claimed', `${o.packer_name ?? 'Someone else'} is packing order ${o.number}.`, [
-    {
-      field: 'orderId',
-      message: `Claimed by ${o.packer_name ?? 'someone else'}.`,
-      packerId: o.packer_id,
-      packerName: o.packer_name,
-      since: o.packing_started_at?.toISOString() ?? null,
-    },
-  ])
+  return AppError.conflict(
+    'already_claimed',
+    `${o.packer_name ?? 'Someone else'} is packing order ${o.number}.`,
+    [
+      {
+        field: 'orderId',
+        message: `Claimed by ${o.packer_name ?? 'someone else'}.`,
+        packerId: o.packer_id,
+        packerName: o.packer_name,
+        since: o.packing_started_at?.toISOString() ?? null,
+      },
+    ],
+  )
 }
 
 async function unallocatedLines(orderId: number, t: Transaction) {
@@ -95,7 +105,11 @@ async function unallocatedLines(orderId: number, t: Transaction) {
  * Claiming one's own claim again changes nothing; someone else's is refused with 409
  * `already_claimed` naming who has it, unless the owner takes it over.
  */
-export async function claimOrder(orderId: number, input: ClaimOrderInput, user: PackingUser): Promise<PackingOrderDto> {
+export async function claimOrder(
+  orderId: number,
+  input: ClaimOrderInput,
+  user: PackingUser,
+): Promise<PackingOrderDto> {
   if (input.takeOver && user.role !== 'owner') {
     throw AppError.forbidden('Only the studio owner can take over an order another person is packing.')
   }
@@ -109,7 +123,13 @@ export async function claimOrder(orderId: number, input: ClaimOrderInput, user: 
         { bind: [orderId, user.id], transaction: t },
       )
       await audit(
-        { userId: user.id, action: 'order.packing_taken_over', entity: 'order', entityId: orderId, data: { from: o.packer_id } },
+        {
+          userId: user.id,
+          action: 'order.packing_taken_over',
+          entity: 'order',
+          entityId: orderId,
+          data: { from: o.packer_id },
+        },
         t,
       )
       return
@@ -140,7 +160,11 @@ export async function claimOrder(orderId: number, input: ClaimOrderInput, user: 
  * (422 `packed_mismatch` names each line at fault); only from `packing` (409 `invalid_transition`);
  * a packer records only an order they claimed.
  */
-export async function markPacked(orderId: number, input: MarkPacked, user: PackingUser): Promise<PackingOrderDto> {
+export async function markPacked(
+  orderId: number,
+  input: MarkPacked,
+  user: PackingUser,
+): Promise<PackingOrderDto> {
   await sequelize.transaction(async (t) => {
     const o = await lockOrder(orderId, t)
     const to = nextStatus(o, 'finish_packing', user)
@@ -244,7 +268,9 @@ export async function pickListFor(orderIds: number[]): Promise<PickListDto> {
     throw new AppError(
       404,
       'not_found',
-      missing.length === 1 ? `Order ${missing[0]} was not found.` : `Orders ${missing.join(', ')} were not found.`,
+      missing.length === 1
+        ? `Order ${missing[0]} was not found.`
+        : `Orders ${missing.join(', ')} were not found.`,
       missing.map((id) => ({ field: 'orders', message: `No order ${id}.`, orderId: id })),
     )
   }
@@ -253,13 +279,24 @@ export async function pickListFor(orderIds: number[]): Promise<PickListDto> {
     throw AppError.conflict(
       'not_pickable',
       `A pick list is for confirmed orders and orders being packed: ${wrong.map((r) => `${r.number} is ${r.status}`).join(', ')}.`,
-      wrong.map((r) => ({ field: 'orders', message: `${r.number} is ${r.status}.`, orderId: r.id, status: r.status })),
+      wrong.map((r) => ({
+        field: 'orders',
+        message: `${r.number} is ${r.status}.`,
+        orderId: r.id,
+        status: r.status,
+      })),
     )
   }
   return pickList(
     orderIds.map((id) => {
       const r = found.get(id)!
-      return { orderId: r.id, number: r.number, shopName: r.shop_name, poNumber: r.po_number, status: r.status }
+      return {
+        orderId: r.id,
+        number: r.number,
+        shopName: r.shop_name,
+        poNumber: r.po_number,
+        status: r.status,
+      }
     }),
   )
 }

@@ -9,7 +9,11 @@ import { receivables as receivablesNow } from '@server/modules/payments/receivab
 import { remindInvoice } from '@server/modules/payments/reminders.service'
 
 export async function record(req: Request, res: Response) {
-  const result = await recordPayment(params(req, InvoiceIdParamsSchema).id, body(req, RecordPaymentSchema), currentUser(req).id)
+  const result = await recordPayment(
+    params(req, InvoiceIdParamsSchema).id,
+    body(req, RecordPaymentSchema),
+    currentUser(req).id,
+  )
   res.status(201).json(result)
 }
 

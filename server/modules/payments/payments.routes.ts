@@ -10,7 +10,12 @@ export function paymentsRoutes() {
   const r = Router()
   const manage = requireRight('payments.manage')
   const list = validate({ query: PaymentListQuerySchema })
-  r.post('/invoices/:id/payments', manage, validate({ params: InvoiceIdParamsSchema, body: RecordPaymentSchema }), c.record)
+  r.post(
+    '/invoices/:id/payments',
+    manage,
+    validate({ params: InvoiceIdParamsSchema, body: RecordPaymentSchema }),
+    c.record,
+  )
   r.post('/invoices/:id/remind', manage, validate({ params: InvoiceIdParamsSchema }), c.remind)
   r.get('/payments', manage, list, c.list)
   r.get('/payments.csv', manage, list, c.csv)

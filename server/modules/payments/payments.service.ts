@@ -83,11 +83,14 @@ export async function recordPayment(
       paid_cents: number
       due_date: string
       voided_at: Date | null
-    }>('SELECT id, number, kind, total_cents, paid_cents, due_date, voided_at FROM invoices WHERE id = $1 FOR UPDATE', {
-      bind: [invoiceId],
-      type: QueryTypes.SELECT,
-      transaction: t,
-    })
+    }>(
+      'SELECT id, number, kind, total_cents, paid_cents, due_date, voided_at FROM invoices WHERE id = $1 FOR UPDATE',
+      {
+        bind: [invoiceId],
+        type: QueryTypes.SELECT,
+        transaction: t,
+      },
+    )
     if (!inv) throw AppError.notFound('That invoice')
     if (inv.kind === 'credit_note' || inv.voided_at) {
       throw AppError.conflict(
@@ -133,7 +136,9 @@ export async function recordPayment(
 }
 
 /** Payments, newest received first, with the filters of `GET /api/payments`. */
-export async function listPayments(filter: Partial<PaymentListQuery> & { paymentId?: number }): Promise<PaymentDto[]> {
+export async function listPayments(
+  filter: Partial<PaymentListQuery> & { paymentId?: number },
+): Promise<PaymentDto[]> {
   const where: string[] = []
   const bind: unknown[] = []
   const add = (sql: (n: string) => string, value: unknown) => {
@@ -157,7 +162,17 @@ export async function listPayments(filter: Partial<PaymentListQuery> & { payment
 export async function paymentsCsv(filter: PaymentListQuery): Promise<string> {
   const items = await listPayments(filter)
   return toCsv([
-    ['Received on', 'Invoice', 'Shop', 'Order', 'Method', 'Amount', 'Reference', 'Recorded by', 'Recorded at'],
+    [
+      'Received on',
+      'Invoice',
+      'Shop',
+      'Order',
+      'Method',
+      'Amount',
+      'Reference',
+      'Recorded by',
+      'Recorded at',
+    ],
     ...items.map((p) => [
       p.receivedOn,
       p.invoiceNumber,

@@ -66,14 +66,24 @@ async function remindLocked(
     const sentTo = await sendReminderMail(invoice, today)
     if (sentTo.length === 0) {
       if (source === 'daily') return { skipped: 'mail failed' }
-      throw new AppError(502, 'mail_failed', 'The reminder could not be sent. Check the mail settings and try again.')
+      throw new AppError(
+        502,
+        'mail_failed',
+        'The reminder could not be sent. Check the mail settings and try again.',
+      )
     }
     await sequelize.query(
       `INSERT INTO invoice_reminders (invoice_id, sent_on, sent_to, source, sent_by) VALUES ($1, $2, $3, $4, $5)`,
       { bind: [invoiceId, today, sentTo.join(', '), source, userId], transaction: t },
     )
     await audit(
-      { userId, action: 'invoice.reminded', entity: 'invoice', entityId: invoiceId, data: { source, to: sentTo } },
+      {
+        userId,
+        action: 'invoice.reminded',
+        entity: 'invoice',
+        entityId: invoiceId,
+        data: { source, to: sentTo },
+      },
       t,
     )
     return { invoiceId, sentOn: today, sentTo }

@@ -6,5 +6,7 @@ import { body, params } from '@server/middlewares/validate'
 import { shipOrder } from '@server/modules/shipments/shipments.service'
 
 export async function ship(req: Request, res: Response) {
-  res.json(await shipOrder(params(req, PackingOrderParamsSchema).id, body(req, ShipOrderSchema), currentUser(req)))
+  res.json(
+    await shipOrder(params(req, PackingOrderParamsSchema).id, body(req, ShipOrderSchema), currentUser(req)),
+  )
 }

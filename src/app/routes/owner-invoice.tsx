@@ -67,13 +67,20 @@ export function Component() {
         }
         actions={
           <>
-            <a href={invoicePdfHref(inv.id)} target="_blank" rel="noopener" className={buttonClasses('secondary')}>
+            <a
+              href={invoicePdfHref(inv.id)}
+              target="_blank"
+              rel="noopener"
+              className={buttonClasses('secondary')}
+            >
               PDF
             </a>
             <Button
               variant="secondary"
               loading={send.isPending}
-              onClick={() => send.mutate(undefined, { onSuccess: (r) => toast.success(`Sent to ${r.sentTo.join(', ')}.`) })}
+              onClick={() =>
+                send.mutate(undefined, { onSuccess: (r) => toast.success(`Sent to ${r.sentTo.join(', ')}.`) })
+              }
             >
               E-mail again
             </Button>
@@ -83,7 +90,13 @@ export function Component() {
                   variant="secondary"
                   loading={remind.isPending}
                   disabled={!canRemind}
-                  title={!owed ? 'Nothing is owed' : canRemind ? undefined : `Next reminder possible on ${formatDate(nextReminder!)}`}
+                  title={
+                    !owed
+                      ? 'Nothing is owed'
+                      : canRemind
+                        ? undefined
+                        : `Next reminder possible on ${formatDate(nextReminder!)}`
+                  }
                   onClick={() =>
                     remind.mutate(undefined, {
                       onSuccess: (r) => {
@@ -113,7 +126,10 @@ export function Component() {
                 {inv.creditNote ? (
                   <>
                     Cancelled by credit note{' '}
-                    <Link to={paths.owner.invoice(inv.creditNote.id)} className="font-medium text-olive-800 underline">
+                    <Link
+                      to={paths.owner.invoice(inv.creditNote.id)}
+                      className="font-medium text-olive-800 underline"
+                    >
                       {inv.creditNote.number}
                     </Link>
                     .
@@ -126,7 +142,10 @@ export function Component() {
             <Card>
               <CardBody className="text-sm text-ink-800">
                 This credit note cancels invoice{' '}
-                <Link to={paths.owner.invoice(inv.creditsInvoice.id)} className="font-medium text-olive-800 underline">
+                <Link
+                  to={paths.owner.invoice(inv.creditsInvoice.id)}
+                  className="font-medium text-olive-800 underline"
+                >
                   {inv.creditsInvoice.number}
                 </Link>{' '}
                 in full.
@@ -175,7 +194,9 @@ export function Component() {
             <CardHeader title="Bill to" />
             <CardBody className="text-sm text-ink-800">
               <p className="font-medium text-ink-900">{inv.billTo.legalName}</p>
-              {inv.billTo.tradingName !== inv.billTo.legalName ? <p>Trading as {inv.billTo.tradingName}</p> : null}
+              {inv.billTo.tradingName !== inv.billTo.legalName ? (
+                <p>Trading as {inv.billTo.tradingName}</p>
+              ) : null}
               <p>Attn. {inv.billTo.contactName}</p>
               {inv.billTo.lines.map((l) => (
                 <p key={l}>{l}</p>
@@ -194,7 +215,8 @@ export function Component() {
                   <ul className="flex flex-col gap-1.5">
                     {inv.reminders.map((r) => (
                       <li key={`${r.sentOn}-${r.sentTo}`}>
-                        {formatDate(r.sentOn)}, {r.source === 'daily' ? 'daily reminder' : `by ${r.sentBy ?? 'the studio'}`}
+                        {formatDate(r.sentOn)},{' '}
+                        {r.source === 'daily' ? 'daily reminder' : `by ${r.sentBy ?? 'the studio'}`}
                         <span className="block text-xs text-ink-600">{r.sentTo}</span>
                       </li>
                     ))}

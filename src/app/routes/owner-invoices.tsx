@@ -50,7 +50,11 @@ export function Component() {
             <a href={invoicesCsvHref(filter)} download className={buttonClasses('secondary')}>
               Export invoices (CSV)
             </a>
-            <a href={paymentsCsvHref({ from: filter.from, to: filter.to, shopId: filter.shopId })} download className={buttonClasses('secondary')}>
+            <a
+              href={paymentsCsvHref({ from: filter.from, to: filter.to, shopId: filter.shopId })}
+              download
+              className={buttonClasses('secondary')}
+            >
               Export payments (CSV)
             </a>
           </>
@@ -59,7 +63,11 @@ export function Component() {
       <div className="flex flex-col gap-6">
         <div className="grid gap-4 sm:grid-cols-3">
           <Stat label={filtered ? 'Invoices shown' : 'Invoices'} value={items.length} />
-          <Stat label="Still owed" value={<Money cents={owed} />} hint={filtered ? 'On the invoices shown' : 'On all invoices'} />
+          <Stat
+            label="Still owed"
+            value={<Money cents={owed} />}
+            hint={filtered ? 'On the invoices shown' : 'On all invoices'}
+          />
           <Stat
             label="Overdue"
             value={<Money cents={overdue.reduce((n, i) => n + i.outstandingCents, 0)} />}
@@ -97,12 +105,26 @@ export function Component() {
                 </Select>
               </Field>
               <Field label="Issued from">
-                <Input type="date" value={filter.from ?? ''} max={filter.to} onChange={(e) => set('from', e.target.value)} />
+                <Input
+                  type="date"
+                  value={filter.from ?? ''}
+                  max={filter.to}
+                  onChange={(e) => set('from', e.target.value)}
+                />
               </Field>
               <Field label="Issued until">
-                <Input type="date" value={filter.to ?? ''} min={filter.from} onChange={(e) => set('to', e.target.value)} />
+                <Input
+                  type="date"
+                  value={filter.to ?? ''}
+                  min={filter.from}
+                  onChange={(e) => set('to', e.target.value)}
+                />
               </Field>
-              <Button variant="secondary" disabled={!filtered} onClick={() => setParams(new URLSearchParams(), { replace: true })}>
+              <Button
+                variant="secondary"
+                disabled={!filtered}
+                onClick={() => setParams(new URLSearchParams(), { replace: true })}
+              >
                 Clear filters
               </Button>
             </form>
@@ -115,7 +137,11 @@ export function Component() {
             items={items}
             showShop
             rowHref={(i) => paths.owner.invoice(i.id)}
-            emptyMessage={filtered ? 'No invoices match these filters.' : 'No invoices yet: they are raised when orders ship.'}
+            emptyMessage={
+              filtered
+                ? 'No invoices match these filters.'
+                : 'No invoices yet: they are raised when orders ship.'
+            }
           />
         )}
       </div>

@@ -29,14 +29,22 @@ export function Component() {
       ) : (
         <div className="flex flex-col gap-6">
           <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
-            <Stat label="Owed in total" value={<Money cents={r.data.outstandingCents} currency={r.data.currency} />} hint={`As of ${formatDate(r.data.asOf)}`} />
+            <Stat
+              label="Owed in total"
+              value={<Money cents={r.data.outstandingCents} currency={r.data.currency} />}
+              hint={`As of ${formatDate(r.data.asOf)}`}
+            />
             <Stat
               label="Overdue"
               value={<Money cents={r.data.overdueCents} currency={r.data.currency} />}
               hint={r.data.overdueCents ? 'Past the due date' : 'Nothing past due'}
               tone={r.data.overdueCents ? 'clay' : 'default'}
             />
-            <Stat label="Shops owing" value={r.data.shops.length} hint={`${r.data.buckets.reduce((n, b) => n + b.invoices, 0)} open invoices`} />
+            <Stat
+              label="Shops owing"
+              value={r.data.shops.length}
+              hint={`${r.data.buckets.reduce((n, b) => n + b.invoices, 0)} open invoices`}
+            />
           </div>
           <ul className="grid gap-4 sm:grid-cols-3 lg:grid-cols-5" aria-label="Ageing buckets">
             {r.data.buckets.map((b) => (
@@ -45,7 +53,13 @@ export function Component() {
                   label={b.label}
                   value={formatMoney(b.cents, r.data.currency)}
                   hint={`${b.invoices} ${b.invoices === 1 ? 'invoice' : 'invoices'}`}
-                  tone={b.bucket === 'current' || b.cents === 0 ? 'default' : b.bucket === '1_30' ? 'honey' : 'clay'}
+                  tone={
+                    b.bucket === 'current' || b.cents === 0
+                      ? 'default'
+                      : b.bucket === '1_30'
+                        ? 'honey'
+                        : 'clay'
+                  }
                 />
               </li>
             ))}
@@ -60,7 +74,11 @@ export function Component() {
             <h2 id="shops-heading" className="text-lg font-medium text-ink-900">
               By shop
             </h2>
-            <ReceivablesTable shops={r.data.shops} currency={r.data.currency} shopHref={(id) => `${paths.owner.invoices}?shopId=${id}`} />
+            <ReceivablesTable
+              shops={r.data.shops}
+              currency={r.data.currency}
+              shopHref={(id) => `${paths.owner.invoices}?shopId=${id}`}
+            />
           </section>
         </div>
       )}

@@ -39,14 +39,19 @@ export function Component() {
   const order = usePackingOrder(id)
   const claim = useClaimOrder()
   const isOwner = me.data?.role === 'owner'
-  const back = isOwner ? { to: paths.owner.packing, label: 'Packing' } : { to: paths.packer.home, label: 'Packing queue' }
+  const back = isOwner
+    ? { to: paths.owner.packing, label: 'Packing' }
+    : { to: paths.packer.home, label: 'Packing queue' }
 
   if (order.isPending || !me.data) return <LoadingBlock label="Loading the order…" />
   if (order.isError || !order.data) {
     return (
       <>
         <PageHeader title="Order not found" back={back} />
-        <EmptyState title="This order is not on the bench." message="It may not be confirmed yet, or it was cancelled." />
+        <EmptyState
+          title="This order is not on the bench."
+          message="It may not be confirmed yet, or it was cancelled."
+        />
       </>
     )
   }
@@ -72,14 +77,24 @@ export function Component() {
         }
         actions={
           <>
-            <a href={packingSlipHref(o.id)} target="_blank" rel="noopener" className={buttonClasses('secondary')}>
+            <a
+              href={packingSlipHref(o.id)}
+              target="_blank"
+              rel="noopener"
+              className={buttonClasses('secondary')}
+            >
               Packing slip
             </a>
             {o.status === 'confirmed' ? (
               <Button
                 loading={claim.isPending}
                 disabled={!o.readyToPack}
-                onClick={() => claim.mutate({ id: o.id }, { onSuccess: () => toast.success(`${o.number} is yours to pack.`) })}
+                onClick={() =>
+                  claim.mutate(
+                    { id: o.id },
+                    { onSuccess: () => toast.success(`${o.number} is yours to pack.`) },
+                  )
+                }
               >
                 Claim
               </Button>
@@ -106,7 +121,10 @@ export function Component() {
 
           {canPack ? (
             <Card>
-              <CardHeader title="Record packed" description="The bars per line must match the allocations above." />
+              <CardHeader
+                title="Record packed"
+                description="The bars per line must match the allocations above."
+              />
               <CardBody>
                 <PackedForm order={o} />
               </CardBody>
@@ -161,7 +179,8 @@ export function Component() {
                   <>
                     <dt className="text-ink-600">Packed</dt>
                     <dd>
-                      {formatDate(o.packedAt.slice(0, 10))}, {o.cartons} {o.cartons === 1 ? 'carton' : 'cartons'}
+                      {formatDate(o.packedAt.slice(0, 10))}, {o.cartons}{' '}
+                      {o.cartons === 1 ? 'carton' : 'cartons'}
                       {o.packedWeightG ? `, ${weight(o.packedWeightG)}` : ''}
                     </dd>
                   </>

@@ -75,13 +75,25 @@ export function Component() {
       ) : (
         <div className="flex flex-col gap-6">
           <div className="grid gap-4 sm:grid-cols-3">
-            <Stat label="To pack" value={toPack} hint="Confirmed, not yet claimed" tone={toPack ? 'honey' : 'default'} />
-            <Stat label="Being packed" value={packing.length} hint={mine ? `${mine} by you` : 'None by you'} />
+            <Stat
+              label="To pack"
+              value={toPack}
+              hint="Confirmed, not yet claimed"
+              tone={toPack ? 'honey' : 'default'}
+            />
+            <Stat
+              label="Being packed"
+              value={packing.length}
+              hint={mine ? `${mine} by you` : 'None by you'}
+            />
             <Stat label="Waiting for the carrier" value={waiting.length} hint="Packed, not yet shipped" />
           </div>
 
           {items.length === 0 ? (
-            <EmptyState title="Nothing to pack" message="Every confirmed order is packed. New ones appear here as the studio confirms them." />
+            <EmptyState
+              title="Nothing to pack"
+              message="Every confirmed order is packed. New ones appear here as the studio confirms them."
+            />
           ) : (
             <QueueTable
               items={items}
@@ -93,7 +105,9 @@ export function Component() {
                 <div className="flex flex-wrap items-center gap-3">
                   {printButton}
                   <span className="text-sm text-ink-700">
-                    {ids.length === 0 ? 'Tick orders in the Pick column to make a pick list.' : `${ids.length} ${ids.length === 1 ? 'order' : 'orders'} picked.`}
+                    {ids.length === 0
+                      ? 'Tick orders in the Pick column to make a pick list.'
+                      : `${ids.length} ${ids.length === 1 ? 'order' : 'orders'} picked.`}
                   </span>
                 </div>
               }
@@ -102,9 +116,16 @@ export function Component() {
 
           {ids.length > 0 ? (
             <Card>
-              <CardHeader title="Pick list" description="Pull each lot in this order, oldest batch first, so the lot codes on the slips match the bars." />
+              <CardHeader
+                title="Pick list"
+                description="Pull each lot in this order, oldest batch first, so the lot codes on the slips match the bars."
+              />
               <CardBody>
-                {pickList.data ? <PickListView list={pickList.data} /> : <LoadingBlock label="Making the pick list…" />}
+                {pickList.data ? (
+                  <PickListView list={pickList.data} />
+                ) : (
+                  <LoadingBlock label="Making the pick list…" />
+                )}
               </CardBody>
             </Card>
           ) : null}
@@ -116,7 +137,12 @@ export function Component() {
             {waiting.length === 0 ? (
               <p className="text-sm text-ink-700">Nothing waits to ship.</p>
             ) : (
-              <QueueTable items={waiting} me={{ id: me.data.id, role }} orderHref={orderHref} label="Packed orders waiting for the carrier" />
+              <QueueTable
+                items={waiting}
+                me={{ id: me.data.id, role }}
+                orderHref={orderHref}
+                label="Packed orders waiting for the carrier"
+              />
             )}
           </section>
         </div>

@@ -1,8 +1,16 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query'
-import type { InvoiceDto, InvoiceListItem, InvoiceListQueryInput, VoidInvoiceInput } from '@shared/schemas/invoices'
+import type {
+  InvoiceDto,
+  InvoiceListItem,
+  InvoiceListQueryInput,
+  VoidInvoiceInput,
+} from '@shared/schemas/invoices'
 import { api, qs } from '@/lib/api-client'
 
-export type InvoiceFilter = Pick<InvoiceListQueryInput, 'from' | 'to' | 'kind'> & { status?: string; shopId?: number }
+export type InvoiceFilter = Pick<InvoiceListQueryInput, 'from' | 'to' | 'kind'> & {
+  status?: string
+  shopId?: number
+}
 
 export const invoiceKeys = {
   all: ['invoices'] as const,
@@ -11,7 +19,8 @@ export const invoiceKeys = {
   detail: (id: number) => [...invoiceKeys.all, 'detail', id] as const,
 }
 
-const filterQs = (f: InvoiceFilter) => qs({ status: f.status, shopId: f.shopId, from: f.from, to: f.to, kind: f.kind })
+const filterQs = (f: InvoiceFilter) =>
+  qs({ status: f.status, shopId: f.shopId, from: f.from, to: f.to, kind: f.kind })
 
 export const invoicePdfHref = (id: number) => `/api/invoices/${id}/pdf`
 export const invoicesCsvHref = (f: InvoiceFilter) => `/api/invoices.csv${filterQs(f)}`
@@ -24,7 +33,8 @@ export const invoicesQuery = (filter: InvoiceFilter = {}) =>
     refetchOnMount: 'always',
   })
 
-export const useInvoices = (filter: InvoiceFilter = {}) => useQuery({ ...invoicesQuery(filter), placeholderData: keepPreviousData })
+export const useInvoices = (filter: InvoiceFilter = {}) =>
+  useQuery({ ...invoicesQuery(filter), placeholderData: keepPreviousData })
 
 export const useInvoice = (id: number) =>
   useQuery({

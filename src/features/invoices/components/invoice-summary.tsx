@@ -11,9 +11,20 @@ export function InvoiceSummary({ invoice }: { invoice: InvoiceDto }) {
   const rows: [string, number, boolean][] = [
     ['Subtotal', invoice.subtotalCents, false],
     ['Shipping', invoice.shippingCents, false],
-    [invoice.taxExempt ? 'Tax (exempt, resale certificate)' : `Tax${invoice.taxRatePct ? ` (${invoice.taxRatePct} %)` : ''}`, invoice.taxCents, false],
+    [
+      invoice.taxExempt
+        ? 'Tax (exempt, resale certificate)'
+        : `Tax${invoice.taxRatePct ? ` (${invoice.taxRatePct} %)` : ''}`,
+      invoice.taxCents,
+      false,
+    ],
     [credit ? 'Total credited' : 'Total', invoice.totalCents, true],
-    ...(credit ? [] : ([['Paid', invoice.paidCents, false], ['Amount due', invoice.outstandingCents, true]] as [string, number, boolean][])),
+    ...(credit
+      ? []
+      : ([
+          ['Paid', invoice.paidCents, false],
+          ['Amount due', invoice.outstandingCents, true],
+        ] as [string, number, boolean][])),
   ]
   return (
     <>
@@ -24,12 +35,24 @@ export function InvoiceSummary({ invoice }: { invoice: InvoiceDto }) {
             <caption className="sr-only">Invoice lines</caption>
             <thead className="border-b border-cream-300 bg-cream-50 text-left text-xs tracking-wide text-ink-700 uppercase">
               <tr>
-                <th scope="col" className="px-4 py-2.5 sm:px-6">SKU</th>
-                <th scope="col" className="px-3 py-2.5">Product</th>
-                <th scope="col" className="px-3 py-2.5 text-right">Cases</th>
-                <th scope="col" className="px-3 py-2.5 text-right">Bars</th>
-                <th scope="col" className="px-3 py-2.5 text-right">Unit price</th>
-                <th scope="col" className="px-4 py-2.5 text-right sm:px-6">Amount</th>
+                <th scope="col" className="px-4 py-2.5 sm:px-6">
+                  SKU
+                </th>
+                <th scope="col" className="px-3 py-2.5">
+                  Product
+                </th>
+                <th scope="col" className="px-3 py-2.5 text-right">
+                  Cases
+                </th>
+                <th scope="col" className="px-3 py-2.5 text-right">
+                  Bars
+                </th>
+                <th scope="col" className="px-3 py-2.5 text-right">
+                  Unit price
+                </th>
+                <th scope="col" className="px-4 py-2.5 text-right sm:px-6">
+                  Amount
+                </th>
               </tr>
             </thead>
             <tbody>
@@ -37,7 +60,9 @@ export function InvoiceSummary({ invoice }: { invoice: InvoiceDto }) {
                 <tr key={l.id} className="border-b border-cream-200 last:border-b-0">
                   <td className="px-4 py-2.5 font-mono sm:px-6">{l.sku}</td>
                   <td className="px-3 py-2.5">{l.description}</td>
-                  <td className="px-3 py-2.5 text-right tabular-nums">{l.cases} × {l.casePack}</td>
+                  <td className="px-3 py-2.5 text-right tabular-nums">
+                    {l.cases} × {l.casePack}
+                  </td>
                   <td className="px-3 py-2.5 text-right tabular-nums">{l.bars}</td>
                   <td className="px-3 py-2.5 text-right">{m(l.unitPriceCents)}</td>
                   <td className="px-4 py-2.5 text-right sm:px-6">{m(l.lineTotalCents)}</td>
@@ -70,7 +95,9 @@ export function InvoiceSummary({ invoice }: { invoice: InvoiceDto }) {
                     <span>
                       {formatDate(p.receivedOn)} · {PAYMENT_METHOD_LABELS[p.method]}
                       {p.reference ? ` · ${p.reference}` : ''}
-                      {p.recordedBy ? <span className="block text-xs text-ink-600">Recorded by {p.recordedBy}</span> : null}
+                      {p.recordedBy ? (
+                        <span className="block text-xs text-ink-600">Recorded by {p.recordedBy}</span>
+                      ) : null}
                     </span>
                     <span className="font-medium">{m(p.amountCents)}</span>
                   </li>

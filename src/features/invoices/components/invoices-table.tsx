@@ -22,14 +22,21 @@ type Props = {
 }
 
 /** Invoices and credit notes: number, dates, status, and what was billed, paid and is still due. */
-export function InvoicesTable({ items, showShop = false, withPdf = false, rowHref, toolbar, emptyMessage }: Props) {
+export function InvoicesTable({
+  items,
+  showShop = false,
+  withPdf = false,
+  rowHref,
+  toolbar,
+  emptyMessage,
+}: Props) {
   const columns = useMemo(
     () =>
       col.columns([
         col.accessor('number', {
           header: 'Number',
           cell: (c) => (
-            <span className="font-mono">
+            <span className="tabular-nums">
               {c.getValue()}
               {c.row.original.kind === 'credit_note' ? <span className="sr-only"> (credit note)</span> : null}
             </span>
@@ -37,18 +44,42 @@ export function InvoicesTable({ items, showShop = false, withPdf = false, rowHre
         }),
         ...(showShop ? [col.accessor('shopName', { header: 'Shop', meta: { wrap: true } })] : []),
         col.accessor('orderNumber', { header: 'Order' }),
-        col.accessor('issueDate', { header: 'Issued', cell: (c) => formatDate(c.getValue()) }),
-        col.accessor('dueDate', {
-          header: 'Due',
-          cell: (c) => (c.row.original.kind === 'credit_note' ? '—' : formatDate(c.getValue())),
+        col.accessor('issueDate', {
+          header: 'Issued · due',
+          cell: (c) => (
+            <span>
+              <span className="block">{formatDate(c.getValue())}</span>
+              <span className="block text-xs text-ink-600">
+                {c.row.original.kind === 'credit_note'
+                  ? 'credit note'
+                  : `due ${formatDate(c.row.original.dueDate)}`}
+              </span>
+            </span>
+          ),
         }),
-        col.accessor('status', { header: 'Status', cell: (c) => <InvoiceStatusBadge status={c.getValue()} /> }),
-        col.accessor('totalCents', { header: 'Total', meta: { align: 'end' }, cell: (c) => <Money cents={c.getValue()} /> }),
-        col.accessor('paidCents', { header: 'Paid', meta: { align: 'end' }, cell: (c) => <Money cents={c.getValue()} /> }),
+        col.accessor('status', {
+          header: 'Status',
+          cell: (c) => <InvoiceStatusBadge status={c.getValue()} />,
+        }),
+        col.accessor('totalCents', {
+          header: 'Total',
+          meta: { align: 'end' },
+          cell: (c) => <Money cents={c.getValue()} />,
+        }),
+        col.accessor('paidCents', {
+          header: 'Paid',
+          meta: { align: 'end' },
+          cell: (c) => <Money cents={c.getValue()} />,
+        }),
         col.accessor('outstandingCents', {
           header: 'Due now',
           meta: { align: 'end' },
-          cell: (c) => <Money cents={c.getValue()} className={c.getValue() > 0 ? 'font-medium text-ink-900' : 'text-ink-600'} />,
+          cell: (c) => (
+            <Money
+              cents={c.getValue()}
+              className={c.getValue() > 0 ? 'font-medium text-ink-900' : 'text-ink-600'}
+            />
+          ),
         }),
         ...(withPdf
           ? [

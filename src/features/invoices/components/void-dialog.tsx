@@ -12,10 +12,21 @@ import { useVoidInvoice } from '@/features/invoices/api/invoices'
 import { applyApiErrors } from '@/lib/form-errors'
 
 /** Voids an invoice: it stays on file, marked void, and a credit note of the same totals takes the next number. */
-export function VoidDialog({ invoice, open, onClose }: { invoice: InvoiceDto; open: boolean; onClose: () => void }) {
+export function VoidDialog({
+  invoice,
+  open,
+  onClose,
+}: {
+  invoice: InvoiceDto
+  open: boolean
+  onClose: () => void
+}) {
   const voiding = useVoidInvoice(invoice.id)
   const [formError, setFormError] = useState<string | null>(null)
-  const form = useForm<VoidInvoiceInput>({ resolver: zodResolver(VoidInvoiceSchema), defaultValues: { reason: '' } })
+  const form = useForm<VoidInvoiceInput>({
+    resolver: zodResolver(VoidInvoiceSchema),
+    defaultValues: { reason: '' },
+  })
   const close = () => {
     form.reset()
     setFormError(null)
@@ -51,7 +62,11 @@ export function VoidDialog({ invoice, open, onClose }: { invoice: InvoiceDto; op
     >
       <form id="void-form" onSubmit={submit} noValidate className="flex flex-col gap-4">
         {formError ? <FormError message={formError} /> : null}
-        <Field label="Reason" hint="Kept with the invoice and shown on it." error={form.formState.errors.reason?.message}>
+        <Field
+          label="Reason"
+          hint="Kept with the invoice and shown on it."
+          error={form.formState.errors.reason?.message}
+        >
           <Textarea rows={3} {...form.register('reason')} />
         </Field>
       </form>

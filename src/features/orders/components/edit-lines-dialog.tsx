@@ -176,7 +176,7 @@ export function EditLinesDialog({
                     <Button
                       size="sm"
                       variant="ghost"
-                      aria-label={`Take ${l.name} off the order`}
+                      aria-label={`Remove ${l.name}`}
                       onClick={() => setLines((ls) => ls.filter((x) => x.productId !== l.productId))}
                     >
                       Remove

@@ -12,7 +12,8 @@ export const packingKeys = {
   all: ['packing'] as const,
   queue: () => [...packingKeys.all, 'queue'] as const,
   order: (id: number) => [...packingKeys.all, 'order', id] as const,
-  pickList: (ids: readonly number[]) => [...packingKeys.all, 'pick-list', [...ids].sort((a, b) => a - b)] as const,
+  pickList: (ids: readonly number[]) =>
+    [...packingKeys.all, 'pick-list', [...ids].sort((a, b) => a - b)] as const,
 }
 
 /** Where the documents open (the browser shows the PDF; the server sets inline disposition). */
@@ -58,7 +59,8 @@ export function useMarkPacked(id: number) {
   const qc = useQueryClient()
   return useMutation({
     meta: { handlesError: true },
-    mutationFn: (body: MarkPackedInput) => api<{ order: PackingOrderDto }>(`/orders/${id}/packed`, { method: 'POST', body }),
+    mutationFn: (body: MarkPackedInput) =>
+      api<{ order: PackingOrderDto }>(`/orders/${id}/packed`, { method: 'POST', body }),
     onSuccess: ({ order }) => qc.setQueryData(packingKeys.order(id), order),
     onSettled: () => qc.invalidateQueries({ queryKey: packingKeys.all }),
   })

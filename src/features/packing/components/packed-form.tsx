@@ -53,7 +53,11 @@ export function PackedForm({ order }: { order: PackingOrderDto }) {
         </Field>
         <Field
           label="Packed weight (g)"
-          hint={order.estimatedWeightG ? `The bars weigh about ${(order.estimatedWeightG / 1000).toFixed(1)} kg; weigh the cartons.` : undefined}
+          hint={
+            order.estimatedWeightG
+              ? `The bars weigh about ${(order.estimatedWeightG / 1000).toFixed(1)} kg; weigh the cartons.`
+              : undefined
+          }
           error={errors.weightG?.message}
         >
           <Input type="number" inputMode="numeric" min={1} step={1} {...form.register('weightG')} />
@@ -70,7 +74,14 @@ export function PackedForm({ order }: { order: PackingOrderDto }) {
               hint={`${line.allocatedBars} bars allocated (${line.lots.map((l) => `${l.lotCode} × ${l.bars}`).join(', ')})`}
               error={errors.lines?.[i]?.bars?.message}
             >
-              <Input type="number" inputMode="numeric" min={0} step={1} className="sm:max-w-40" {...form.register(`lines.${i}.bars`)} />
+              <Input
+                type="number"
+                inputMode="numeric"
+                min={0}
+                step={1}
+                className="sm:max-w-40"
+                {...form.register(`lines.${i}.bars`)}
+              />
             </Field>
           )
         })}

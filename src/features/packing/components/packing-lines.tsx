@@ -26,7 +26,8 @@ export function PackingLines({ lines, tickable }: { lines: PackingLine[]; tickab
                   <span className="font-mono">{l.sku}</span> · {l.name}
                 </p>
                 <p className="text-sm text-ink-700">
-                  {l.cases} {l.cases === 1 ? 'case' : 'cases'} of {l.casePack} = <strong className="font-medium text-ink-900">{l.bars} bars</strong>
+                  {l.cases} {l.cases === 1 ? 'case' : 'cases'} of {l.casePack} ={' '}
+                  <strong className="font-medium text-ink-900">{l.bars} bars</strong>
                 </p>
                 {short ? (
                   <Badge tone="honey" className="mt-1">
@@ -37,7 +38,10 @@ export function PackingLines({ lines, tickable }: { lines: PackingLine[]; tickab
             </div>
             <ul className="flex flex-col gap-1 sm:w-80" aria-label={`Batch lots for ${l.sku}`}>
               {l.lots.map((lot) => (
-                <li key={lot.batchId} className="flex items-baseline justify-between gap-3 rounded-md bg-cream-50 px-2.5 py-1.5 text-sm">
+                <li
+                  key={lot.batchId}
+                  className="flex items-baseline justify-between gap-3 rounded-md bg-cream-50 px-2.5 py-1.5 text-sm"
+                >
                   <span>
                     <span className="font-mono font-medium text-ink-900">{lot.lotCode}</span>
                     <span className="block text-xs text-ink-600">{lot.location ?? 'No location set'}</span>

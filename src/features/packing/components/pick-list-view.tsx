@@ -27,7 +27,10 @@ export function PickListView({ list }: { list: PickListDto }) {
           </div>
           <ul className="divide-y divide-cream-200 rounded-md ring-1 ring-cream-300">
             {p.lots.map((lot) => (
-              <li key={lot.batchId} className="flex flex-col gap-1 px-3 py-2 sm:flex-row sm:items-center sm:gap-4">
+              <li
+                key={lot.batchId}
+                className="flex flex-col gap-1 px-3 py-2 sm:flex-row sm:items-center sm:gap-4"
+              >
                 <label className="flex min-w-0 flex-1 cursor-pointer items-center gap-3">
                   <input type="checkbox" className="size-5 shrink-0 accent-olive-700 sm:size-4" />
                   <span className="font-mono text-sm font-medium text-ink-900">{lot.lotCode}</span>
@@ -35,8 +38,12 @@ export function PickListView({ list }: { list: PickListDto }) {
                 </label>
                 <span className="text-sm text-ink-800">{lot.location ?? 'No location set'}</span>
                 <span className="text-sm text-ink-600">ready {formatDate(lot.readyDate)}</span>
-                <span className="text-sm font-medium text-ink-900 tabular-nums sm:w-16 sm:text-right">{lot.bars} bars</span>
-                <span className="text-sm text-ink-700 sm:w-56">{lot.orders.map((o) => `${o.number} × ${o.bars}`).join(', ')}</span>
+                <span className="text-sm font-medium text-ink-900 tabular-nums sm:w-16 sm:text-right">
+                  {lot.bars} bars
+                </span>
+                <span className="text-sm text-ink-700 sm:w-56">
+                  {lot.orders.map((o) => `${o.number} × ${o.bars}`).join(', ')}
+                </span>
               </li>
             ))}
           </ul>

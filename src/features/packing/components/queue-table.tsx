@@ -23,7 +23,7 @@ type Props = {
 }
 
 function cases(item: PackingQueueItem) {
-  return `${item.cases} ${item.cases === 1 ? 'case' : 'cases'} · ${item.bars} bars`
+  return `${item.cases} ${item.cases === 1 ? 'case' : 'cases'}`
 }
 
 /** The bench's queue: oldest first, who packs what, a claim button, and a tick to add an order to the pick list. */
@@ -53,23 +53,42 @@ export function QueueTable({ items, me, orderHref, label, selection, toolbar, em
               }),
             ]
           : []),
-        col.accessor('number', { header: 'Order', meta: { rowLink: true } }),
+        col.accessor('number', {
+          header: 'Order',
+          meta: { rowLink: true },
+          cell: (c) => (
+            <span>
+              <span className="block">{c.getValue()}</span>
+              <span className="block text-xs font-normal text-ink-600">
+                {c.row.original.poNumber ? `PO ${c.row.original.poNumber}` : 'No PO'}
+              </span>
+            </span>
+          ),
+        }),
         col.accessor('shopName', { header: 'Account', meta: { wrap: true } }),
-        col.accessor((o) => o.poNumber ?? '—', { id: 'po', header: 'PO number' }),
         col.accessor((o) => o.placedAt.slice(0, 10), {
           id: 'placed',
           header: 'Placed',
-          cell: (c) => formatDate(c.getValue()),
-        }),
-        col.accessor((o) => o.requestedShipDate ?? '', {
-          id: 'ship',
-          header: 'Ship by',
-          cell: (c) => (c.getValue() ? formatDate(c.getValue()) : '—'),
+          cell: (c) => (
+            <span>
+              <span className="block">{formatDate(c.getValue())}</span>
+              {c.row.original.requestedShipDate ? (
+                <span className="block text-xs text-ink-600">
+                  ship by {formatDate(c.row.original.requestedShipDate)}
+                </span>
+              ) : null}
+            </span>
+          ),
         }),
         col.accessor('bars', {
           header: 'To pull',
           meta: { align: 'end' },
-          cell: (c) => cases(c.row.original),
+          cell: (c) => (
+            <span>
+              <span className="block">{cases(c.row.original)}</span>
+              <span className="block text-xs text-ink-600">{c.getValue()} bars</span>
+            </span>
+          ),
         }),
         col.accessor((o) => o.packer?.name ?? '', {
           id: 'packer',

@@ -7,7 +7,8 @@ export const paymentKeys = {
   receivables: () => [...paymentKeys.all, 'receivables'] as const,
 }
 
-export const paymentsCsvHref = (f: { from?: string; to?: string; shopId?: number }) => `/api/payments.csv${qs(f)}`
+export const paymentsCsvHref = (f: { from?: string; to?: string; shopId?: number }) =>
+  `/api/payments.csv${qs(f)}`
 
 /** The page composing this refreshes the invoice once the payment is in (features do not share keys). */
 export function useRecordPayment(invoiceId: number) {

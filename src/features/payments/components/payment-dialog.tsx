@@ -47,7 +47,9 @@ export function PaymentDialog({
     setFormError(null)
     try {
       await record.mutateAsync(values)
-      toast.success(`${formatCents(values.amountCents, invoice.currency)} recorded against ${invoice.number}.`)
+      toast.success(
+        `${formatCents(values.amountCents, invoice.currency)} recorded against ${invoice.number}.`,
+      )
       onRecorded()
       close()
     } catch (err) {
@@ -79,7 +81,11 @@ export function PaymentDialog({
     >
       <form id="payment-form" onSubmit={submit} noValidate className="flex flex-col gap-4">
         {formError && !errors.amount ? <FormError message={formError} /> : null}
-        <Field label="Amount" hint="Whole or part of what is owed, e.g. 125.50" error={errors.amount?.message}>
+        <Field
+          label="Amount"
+          hint="Whole or part of what is owed, e.g. 125.50"
+          error={errors.amount?.message}
+        >
           <Input inputMode="decimal" autoComplete="off" {...form.register('amount')} />
         </Field>
         <Field label="Method" error={errors.method?.message}>
@@ -94,7 +100,12 @@ export function PaymentDialog({
         <Field label="Received on" error={errors.receivedOn?.message}>
           <Input type="date" max={today} {...form.register('receivedOn')} />
         </Field>
-        <Field label="Reference" optional hint="Cheque number, transfer reference…" error={errors.reference?.message}>
+        <Field
+          label="Reference"
+          optional
+          hint="Cheque number, transfer reference…"
+          error={errors.reference?.message}
+        >
           <Input autoComplete="off" {...form.register('reference')} />
         </Field>
       </form>

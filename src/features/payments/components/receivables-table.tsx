@@ -25,17 +25,53 @@ export function ReceivablesTable({
   const columns = useMemo(
     () =>
       col.columns([
-        col.accessor('shopName', { header: 'Shop', meta: { wrap: true } }),
-        col.accessor((s) => PAYMENT_TERMS_LABELS[s.terms], { id: 'terms', header: 'Terms' }),
-        col.accessor((s) => s.byBucket.current, { id: 'current', header: AGEING_BUCKET_LABELS.current, meta: { align: 'end' }, cell: money(currency) }),
-        col.accessor((s) => s.byBucket['1_30'], { id: '1_30', header: AGEING_BUCKET_LABELS['1_30'], meta: { align: 'end' }, cell: money(currency) }),
-        col.accessor((s) => s.byBucket['31_60'], { id: '31_60', header: AGEING_BUCKET_LABELS['31_60'], meta: { align: 'end' }, cell: money(currency) }),
-        col.accessor((s) => s.byBucket['61_90'], { id: '61_90', header: AGEING_BUCKET_LABELS['61_90'], meta: { align: 'end' }, cell: money(currency) }),
-        col.accessor((s) => s.byBucket.over_90, { id: 'over_90', header: AGEING_BUCKET_LABELS.over_90, meta: { align: 'end' }, cell: money(currency) }),
+        col.accessor('shopName', {
+          header: 'Shop',
+          cell: (c) => (
+            <span>
+              <span className="block">{c.getValue()}</span>
+              <span className="block text-xs font-normal text-ink-600">
+                {PAYMENT_TERMS_LABELS[c.row.original.terms]}
+              </span>
+            </span>
+          ),
+        }),
+        col.accessor((s) => s.byBucket.current, {
+          id: 'current',
+          header: AGEING_BUCKET_LABELS.current,
+          meta: { align: 'end' },
+          cell: money(currency),
+        }),
+        col.accessor((s) => s.byBucket['1_30'], {
+          id: '1_30',
+          header: AGEING_BUCKET_LABELS['1_30'],
+          meta: { align: 'end' },
+          cell: money(currency),
+        }),
+        col.accessor((s) => s.byBucket['31_60'], {
+          id: '31_60',
+          header: AGEING_BUCKET_LABELS['31_60'],
+          meta: { align: 'end' },
+          cell: money(currency),
+        }),
+        col.accessor((s) => s.byBucket['61_90'], {
+          id: '61_90',
+          header: AGEING_BUCKET_LABELS['61_90'],
+          meta: { align: 'end' },
+          cell: money(currency),
+        }),
+        col.accessor((s) => s.byBucket.over_90, {
+          id: 'over_90',
+          header: AGEING_BUCKET_LABELS.over_90,
+          meta: { align: 'end' },
+          cell: money(currency),
+        }),
         col.accessor('outstandingCents', {
           header: 'Owed',
           meta: { align: 'end' },
-          cell: (c) => <Money cents={c.getValue()} currency={currency} className="font-medium text-ink-900" />,
+          cell: (c) => (
+            <Money cents={c.getValue()} currency={currency} className="font-medium text-ink-900" />
+          ),
         }),
         col.accessor((s) => s.oldestDueDate ?? '', {
           id: 'oldest',
