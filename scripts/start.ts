@@ -8,8 +8,10 @@ import { spawn, spawnSync } from 'node:child_process'
 import fs from 'node:fs'
 import path from 'node:path'
 import { DEMO_PASSWORDS, DEMO_SHOPS, DEMO_STAFF } from '../seeders/demo/scenario'
+import { startCardServiceFake } from './lib/card-service-fake'
+import type { CardServiceFake } from './lib/card-service-fake'
 import { ROOT, loadSecrets, startLocalStack } from './lib/local-stack'
-import { isPortFree } from './lib/ports'
+import { freePort, isPortFree } from './lib/ports'
 
 const log = (l: string) => console.log(`[lathercase] ${l}`)
 
@@ -45,6 +47,27 @@ async function main() {
   const stack = await startLocalStack(log)
   const secrets = loadSecrets()
   const appUrl = process.env.APP_URL ?? `http://${host}:${port}`
+  // Card payments: with CARD_SECRET_KEY set the real service is used as configured; otherwise the
+  // local fake runs on loopback and the server's SDK is pointed at it.
+  let cardFake: CardServiceFake | null = null
+  let cardEnv: Record<string, string> = {}
+  if (!process.env.CARD_SECRET_KEY) {
+    const wanted = Number(process.env.CARD_FAKE_PORT ?? 12111)
+    const fakePort = (await isPortFree(wanted, host)) ? wanted : await freePort()
+    cardFake = await startCardServiceFake({
+      port: fakePort,
+      host,
+      webhookSecret: secrets.cardWebhookSecret,
+      webhookUrl: `${appUrl}/api/webhooks/card`,
+    })
+    cardEnv = {
+      CARD_SECRET_KEY: secrets.cardSecretKey,
+      CARD_WEBHOOK_SECRET: secrets.cardWebhookSecret,
+      CARD_API_HOST: host,
+      CARD_API_PORT: String(cardFake.port),
+      CARD_API_PROTOCOL: 'http',
+    }
+  }
   const server = spawn(process.execPath, ['--import', 'tsx', path.join(ROOT, 'server', 'index.ts')], {
     cwd: ROOT,
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
@@ -59,6 +82,7 @@ async function main() {
       SMTP_HOST: '127.0.0.1',
       SMTP_PORT: String(stack.mail.smtpPort),
       MAIL_CATCHER_URL: stack.mail.url,
+      ...cardEnv,
     },
   })
 
@@ -71,6 +95,7 @@ async function main() {
       server.kill('SIGTERM')
       await new Promise((r) => server.once('exit', r))
     }
+    await cardFake?.stop()
     await stack.stop()
     log('Stopped.')
     process.exit(code)
@@ -93,6 +118,9 @@ async function main() {
         '',
         `  Lathercase is running at   ${appUrl}`,
         `  Mail catcher (all e-mail)  ${stack.mail.url}`,
+        cardFake
+          ? `  Card payments              test card service at ${cardFake.url} (card 4242 4242 4242 4242 pays)`
+          : '  Card payments              the card service configured in CARD_SECRET_KEY',
         '',
         '  Demo sign-ins:',
         ...DEMO_STAFF.map((s) => `    ${s.role.padEnd(7)} ${s.email.padEnd(28)} ${DEMO_PASSWORDS[s.role]}`),

@@ -16,6 +16,7 @@ import { batchesRoutes } from '@server/modules/batches/batches.routes'
 import { createPassport } from '@server/modules/auth/passport'
 import { batchSheetRoutes } from '@server/modules/batch-sheet/batch-sheet.routes'
 import { cartRoutes } from '@server/modules/cart/cart.routes'
+import { cardPaymentsRoutes, cardWebhookRoutes } from '@server/modules/card-payments/card-payments.routes'
 import { catalogueRoutes } from '@server/modules/catalogue/catalogue.routes'
 import { healthRoutes } from '@server/modules/health/health.routes'
 import { ingredientsRoutes } from '@server/modules/ingredients/ingredients.routes'
@@ -82,6 +83,8 @@ export function createApp(opts: AppOptions = {}) {
     res.set('Cache-Control', 'no-store')
     next()
   })
+  // The card service's signed events need the raw bytes: read before the JSON parser.
+  api.use('/webhooks/card', cardWebhookRoutes())
   // A pasted purchases CSV may be up to 1 MB (more once JSON-escaped); every other body stays small.
   api.use('/purchases/import', express.json({ limit: '2mb' }))
   api.use(express.json({ limit: '256kb' }))
@@ -125,6 +128,7 @@ export function createApp(opts: AppOptions = {}) {
   api.use(shipmentsRoutes()) // /orders/:id/ship
   api.use(invoicesRoutes()) // /invoices(.csv), /invoices/:id/*, /orders/:id/invoice
   api.use(paymentsRoutes()) // /invoices/:id/{payments,remind}, /payments(.csv), /receivables
+  api.use(cardPaymentsRoutes()) // /invoices/:id/card-checkout(s), /payments/:id/refunds, /card-payments/*
   api.use('/catalogue', catalogueRoutes())
   api.use('/cart', cartRoutes())
   api.use('/orders.csv', ordersCsvRoutes())

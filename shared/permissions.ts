@@ -23,6 +23,7 @@ export const RIGHTS = {
   'packing.work': ['owner', 'packer'],
   'invoices.view': ['owner', 'buyer'],
   'invoices.manage': ['owner'],
+  'invoices.pay': ['buyer'],
   'payments.manage': ['owner'],
   'reports.view': ['owner'],
 } as const satisfies Record<string, readonly Role[]>

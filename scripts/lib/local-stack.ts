@@ -20,19 +20,30 @@ export { ROOT }
 
 export const DATA_DIR = path.join(ROOT, '.data')
 
-type Secrets = { sessionSecret: string; pgSuperPassword: string; pgAppPassword: string }
+type Secrets = {
+  sessionSecret: string
+  pgSuperPassword: string
+  pgAppPassword: string
+  /** The test key and webhook secret of the local card-service fake. */
+  cardSecretKey: string
+  cardWebhookSecret: string
+}
 
-/** Random secrets made on first start and kept in .data/secrets.json (mode 0600). */
+/** Random secrets made on first start and kept in .data/secrets.json (mode 0600); new ones are added to an older file. */
 export function loadSecrets(): Secrets {
   const file = path.join(DATA_DIR, 'secrets.json')
   fs.mkdirSync(DATA_DIR, { recursive: true })
-  if (fs.existsSync(file)) return JSON.parse(fs.readFileSync(file, 'utf8')) as Secrets
+  const kept = fs.existsSync(file) ? (JSON.parse(fs.readFileSync(file, 'utf8')) as Partial<Secrets>) : {}
   const s: Secrets = {
-    sessionSecret: randomBytes(48).toString('base64url'),
-    pgSuperPassword: randomBytes(24).toString('base64url'),
-    pgAppPassword: randomBytes(24).toString('base64url'),
+    sessionSecret: kept.sessionSecret ?? randomBytes(48).toString('base64url'),
+    pgSuperPassword: kept.pgSuperPassword ?? randomBytes(24).toString('base64url'),
+    pgAppPassword: kept.pgAppPassword ?? randomBytes(24).toString('base64url'),
+    cardSecretKey: kept.cardSecretKey ?? `sk_test_${randomBytes(16).toString('hex')}`,
+    cardWebhookSecret: kept.cardWebhookSecret ?? `whsec_${randomBytes(24).toString('hex')}`,
   }
-  fs.writeFileSync(file, JSON.stringify(s, null, 2) + '\n', { mode: 0o600 })
+  if (Object.keys(s).some((k) => !(k in kept))) {
+    fs.writeFileSync(file, JSON.stringify(s, null, 2) + '\n', { mode: 0o600 })
+  }
   return s
 }
 

@@ -25,10 +25,32 @@ const EnvSchema = z
     LOGIN_MAX_FAILURES: z.coerce.number().int().min(1).default(8),
     LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
     JOBS: bool.default(true),
+    // Card payments through the hosted card-payment service (the `stripe` SDK). Without a secret
+    // key the pay-by-card action is off. The API host/port/protocol point the SDK at the local
+    // fake in development and tests; left unset, the SDK talks to the real service.
+    CARD_SECRET_KEY: z.string().trim().min(8, 'CARD_SECRET_KEY looks too short').optional(),
+    CARD_WEBHOOK_SECRET: z.string().trim().min(8, 'CARD_WEBHOOK_SECRET looks too short').optional(),
+    CARD_API_HOST: z.string().trim().min(1).optional(),
+    CARD_API_PORT: z.coerce.number().int().min(1).max(65535).optional(),
+    CARD_API_PROTOCOL: z.enum(['http', 'https']).optional(),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
       ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'is required in production' })
+    }
+    if (env.CARD_SECRET_KEY && !env.CARD_WEBHOOK_SECRET) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['CARD_WEBHOOK_SECRET'],
+        message: 'is required with CARD_SECRET_KEY',
+      })
+    }
+    if (env.CARD_SECRET_KEY?.startsWith('sk_live_') && env.CARD_API_PROTOCOL === 'http') {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['CARD_API_PROTOCOL'],
+        message: 'a live key is never sent over plain http',
+      })
     }
   })
 

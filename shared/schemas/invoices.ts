@@ -102,6 +102,10 @@ export type InvoicePaymentDto = {
   receivedOn: string
   reference: string | null
   recordedBy: string | null
+  /** Card refunds given back from this payment so far. */
+  refundedCents: number
+  /** A card payment taken through the card service, which the owner may refund. */
+  refundable: boolean
 }
 
 export type BillTo = {

@@ -100,6 +100,8 @@ export type PaymentDto = {
   reference: string | null
   recordedBy: string | null
   createdAt: string
+  /** Card refunds given back from this payment so far. */
+  refundedCents: number
 }
 export type PaymentListDto = { items: PaymentDto[] }
 

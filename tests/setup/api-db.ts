@@ -2,6 +2,7 @@
  * Per test file: a database of its own, copied from the demo template, and the environment the
  * server modules read at import. Runs before the test file imports anything from server/.
  */
+import { randomBytes } from 'node:crypto'
 import { afterAll, inject } from 'vitest'
 import { createTestDatabase } from './test-db'
 
@@ -19,6 +20,12 @@ Object.assign(process.env, {
   LOG_LEVEL: 'warn',
   APP_URL: 'http://127.0.0.1:3999',
   JOBS: 'false',
+  // The card-service fake; a key of its own per file, so each file's webhook endpoint is its own.
+  CARD_SECRET_KEY: `sk_test_${randomBytes(12).toString('hex')}`,
+  CARD_WEBHOOK_SECRET: services.cardWebhookSecret,
+  CARD_API_HOST: '127.0.0.1',
+  CARD_API_PORT: String(services.cardPort),
+  CARD_API_PROTOCOL: 'http',
 })
 
 afterAll(async () => {

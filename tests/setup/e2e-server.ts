@@ -3,6 +3,7 @@
  * process (as `npm start` runs it) on a free port, against a database copied from the demo template.
  */
 import { spawn } from 'node:child_process'
+import { randomBytes } from 'node:crypto'
 import fs from 'node:fs'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
@@ -31,6 +32,14 @@ export default async function setup(project: TestProject) {
   const logFile = path.join(root, 'test-results', 'e2e-server.log')
   fs.mkdirSync(path.dirname(logFile), { recursive: true })
   const log = fs.openSync(logFile, 'w')
+  // The card-service fake calls this server back with its webhook events.
+  const cardKey = `sk_test_${randomBytes(12).toString('hex')}`
+  const endpoint = await fetch(`${services.cardUrl}/v1/webhook_endpoints`, {
+    method: 'POST',
+    headers: { authorization: `Bearer ${cardKey}`, 'content-type': 'application/x-www-form-urlencoded' },
+    body: new URLSearchParams({ url: `${baseUrl}/api/webhooks/card`, 'enabled_events[0]': '*' }),
+  })
+  if (!endpoint.ok) throw new Error(`the card-service fake refused the webhook endpoint (${endpoint.status})`)
   const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server', 'index.ts')], {
     cwd: root,
     stdio: ['ignore', log, log],
@@ -47,6 +56,11 @@ export default async function setup(project: TestProject) {
       BCRYPT_ROUNDS: '4',
       LOG_LEVEL: 'warn',
       LOGIN_MAX_FAILURES: '50',
+      CARD_SECRET_KEY: cardKey,
+      CARD_WEBHOOK_SECRET: services.cardWebhookSecret,
+      CARD_API_HOST: '127.0.0.1',
+      CARD_API_PORT: String(services.cardPort),
+      CARD_API_PROTOCOL: 'http',
     },
   })
   const until = Date.now() + 60_000

@@ -12,6 +12,7 @@ import pg from 'pg'
 import { Sequelize } from 'sequelize'
 import type { TestProject } from 'vitest/node'
 import { migrate, seeder } from '../../server/db/migrator'
+import { startCardServiceFake } from '../../scripts/lib/card-service-fake'
 import { startMailCatcher } from '../../scripts/lib/mail-catcher'
 import { freePort } from '../../scripts/lib/ports'
 import { destroyCluster, ensureDatabase, startCluster } from '../../scripts/lib/postgres'
@@ -23,6 +24,10 @@ export type TestServices = {
   appPassword: string
   smtpPort: number
   mailUrl: string
+  /** The local card-service fake: the SDK's host/port, and the secret it signs webhooks with. */
+  cardPort: number
+  cardUrl: string
+  cardWebhookSecret: string
 }
 
 declare module 'vitest' {
@@ -49,9 +54,12 @@ export default async function setup(project: TestProject) {
     webPort: await freePort(),
     dir: path.join(base, 'mail'),
   })
+  const cardWebhookSecret = `whsec_${randomBytes(24).toString('hex')}`
+  const card = await startCardServiceFake({ webhookSecret: cardWebhookSecret })
   const teardown = async () => {
     if (stopped) return
     stopped = true
+    await card.stop().catch(() => {})
     await mail.stop().catch(() => {})
     destroyCluster(cluster)
     fs.rmSync(base, { recursive: true, force: true })
@@ -84,6 +92,9 @@ export default async function setup(project: TestProject) {
     appPassword,
     smtpPort: mail.smtpPort,
     mailUrl: mail.url,
+    cardPort: card.port,
+    cardUrl: card.url,
+    cardWebhookSecret,
   }
   project.provide('services', services)
   process.env.LC_TEST_SERVICES = JSON.stringify(services)

@@ -160,8 +160,13 @@ export async function findInvoice(
       received_on: string
       reference: string | null
       recorded_by: string | null
+      refunded_cents: number
+      refundable: boolean
     }>(
-      `SELECT p.id, p.method, p.amount_cents, p.received_on, p.reference, u.name AS recorded_by
+      `SELECT p.id, p.method, p.amount_cents, p.received_on, p.reference, u.name AS recorded_by,
+              (SELECT coalesce(sum(r.amount_cents), 0)::int FROM payment_refunds r WHERE r.payment_id = p.id)
+                AS refunded_cents,
+              EXISTS (SELECT 1 FROM card_payments cp WHERE cp.payment_id = p.id) AS refundable
          FROM payments p LEFT JOIN users u ON u.id = p.recorded_by
         WHERE p.invoice_id = $1 ORDER BY p.received_on, p.id`,
       [id],
@@ -216,6 +221,8 @@ export async function findInvoice(
       receivedOn: p.received_on,
       reference: p.reference,
       recordedBy: viewer.role === 'owner' ? p.recorded_by : null,
+      refundedCents: p.refunded_cents,
+      refundable: p.refundable,
     })),
     voidedAt: r.voided_at ? r.voided_at.toISOString() : null,
     voidReason: r.void_reason,

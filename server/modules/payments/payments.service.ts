@@ -9,6 +9,7 @@ import type { PaymentDto, PaymentListQuery, PaymentMethod, RecordPayment } from 
 import { sequelize } from '@server/db/sequelize'
 import { AppError } from '@server/lib/app-error'
 import { audit } from '@server/modules/audit/audit.service'
+import { listRefunds } from '@server/modules/card-payments/card-payments.service'
 import { studioToday } from '@server/modules/availability/availability.service'
 import { amountsOf } from '@server/modules/invoices/invoice-queries'
 import { requireInvoice } from '@server/modules/invoices/invoices.service'
@@ -29,12 +30,14 @@ type PaymentRow = {
   reference: string | null
   recorded_by: string | null
   created_at: Date
+  refunded_cents: number
 }
 
 const SELECT = `
   SELECT p.id, p.invoice_id, i.number AS invoice_number, i.order_id, o.number AS order_number, i.shop_id,
          s.trading_name AS shop_name, p.method, p.amount_cents, p.received_on, p.reference, u.name AS recorded_by,
-         p.created_at
+         p.created_at,
+         (SELECT coalesce(sum(r.amount_cents), 0)::int FROM payment_refunds r WHERE r.payment_id = p.id) AS refunded_cents
     FROM payments p
     JOIN invoices i ON i.id = p.invoice_id
     JOIN orders o ON o.id = i.order_id
@@ -56,6 +59,7 @@ function toDto(r: PaymentRow): PaymentDto {
     reference: r.reference,
     recordedBy: r.recorded_by,
     createdAt: r.created_at.toISOString(),
+    refundedCents: r.refunded_cents,
   }
 }
 
@@ -158,9 +162,49 @@ export async function listPayments(
   return rows.map(toDto)
 }
 
-/** The bookkeeper's export of payments received. */
+/**
+ * The bookkeeper's export of payments received, and card refunds as rows of their own with a
+ * negative amount (dated the day of the refund), so the Amount column adds up to the money kept.
+ */
 export async function paymentsCsv(filter: PaymentListQuery): Promise<string> {
-  const items = await listPayments(filter)
+  const [items, refunds] = await Promise.all([
+    listPayments(filter),
+    !filter.method || filter.method === 'card'
+      ? listRefunds({ shopId: filter.shopId, invoiceId: filter.invoiceId, from: filter.from, to: filter.to })
+      : Promise.resolve([]),
+  ])
+  const rows = [
+    ...items.map((p) => ({
+      date: p.receivedOn,
+      at: p.createdAt,
+      cells: [
+        p.receivedOn,
+        p.invoiceNumber,
+        spreadsheetSafe(p.shopName),
+        p.orderNumber,
+        PAYMENT_METHOD_LABELS[p.method],
+        (p.amountCents / 100).toFixed(2),
+        spreadsheetSafe(p.reference ?? ''),
+        spreadsheetSafe(p.recordedBy ?? ''),
+        p.createdAt,
+      ],
+    })),
+    ...refunds.map((r) => ({
+      date: r.refundedOn,
+      at: r.createdAt,
+      cells: [
+        r.refundedOn,
+        r.invoiceNumber,
+        spreadsheetSafe(r.shopName),
+        r.orderNumber,
+        'Card refund',
+        (-r.amountCents / 100).toFixed(2),
+        spreadsheetSafe([r.providerRefundId, r.reason].filter(Boolean).join(' · ')),
+        spreadsheetSafe(r.createdBy ?? ''),
+        r.createdAt,
+      ],
+    })),
+  ].sort((a, b) => b.date.localeCompare(a.date) || b.at.localeCompare(a.at))
   return toCsv([
     [
       'Received on',
@@ -173,16 +217,6 @@ export async function paymentsCsv(filter: PaymentListQuery): Promise<string> {
       'Recorded by',
       'Recorded at',
     ],
-    ...items.map((p) => [
-      p.receivedOn,
-      p.invoiceNumber,
-      spreadsheetSafe(p.shopName),
-      p.orderNumber,
-      PAYMENT_METHOD_LABELS[p.method],
-      (p.amountCents / 100).toFixed(2),
-      spreadsheetSafe(p.reference ?? ''),
-      spreadsheetSafe(p.recordedBy ?? ''),
-      p.createdAt,
-    ]),
+    ...rows.map((r) => r.cells),
   ])
 }
