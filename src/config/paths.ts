@@ -52,6 +52,7 @@ export const paths = {
     orders: '/shop/orders',
     order: (id: number | string) => `/shop/orders/${id}`,
     invoices: '/shop/invoices',
+    cardReturn: (id: number | string) => `/shop/invoices/${id}/card-return`,
   },
 } as const
 

@@ -5,10 +5,19 @@ import { Stat } from '@/components/ui/stat'
 import { formatDate } from '@shared/domain/dates/dates'
 import { useInvoices } from '@/features/invoices/api/invoices'
 import { InvoicesTable } from '@/features/invoices/components/invoices-table'
+import { useCardPaymentsStatus } from '@/features/card-payments/api/card-payments'
+import { PayByCardButton } from '@/features/card-payments/components/pay-by-card-button'
+import type { InvoiceListItem } from '@shared/schemas/invoices'
+
+const payAction = {
+  header: 'Pay',
+  cell: (invoice: InvoiceListItem) => <PayByCardButton invoice={invoice} />,
+}
 
 /** The buyer's own shop's invoices and credit notes, each with its PDF. */
 export function Component() {
   const invoices = useInvoices()
+  const cards = useCardPaymentsStatus()
   const items = invoices.data ?? []
   const open = items.filter((i) => i.outstandingCents > 0)
   const overdue = open.filter((i) => i.status === 'overdue')
@@ -44,6 +53,7 @@ export function Component() {
           <InvoicesTable
             items={items}
             withPdf
+            rowAction={cards.data?.enabled ? payAction : undefined}
             emptyMessage="No invoices yet: they are sent when your orders ship."
           />
         </div>

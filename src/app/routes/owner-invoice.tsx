@@ -17,6 +17,7 @@ import { InvoiceSummary } from '@/features/invoices/components/invoice-summary'
 import { VoidDialog } from '@/features/invoices/components/void-dialog'
 import { paymentKeys, useSendReminder } from '@/features/payments/api/payments'
 import { PaymentDialog } from '@/features/payments/components/payment-dialog'
+import { CardPaymentsPanel } from '@/features/card-payments/components/card-payments-panel'
 
 /** One invoice or credit note: its PDF, payments, reminders, and voiding it with a credit note. */
 export function Component() {
@@ -153,6 +154,7 @@ export function Component() {
             </Card>
           ) : null}
           <InvoiceSummary invoice={inv} />
+          <CardPaymentsPanel invoice={inv} onChanged={refresh} />
         </div>
 
         <div className="flex min-w-0 flex-col gap-6">

@@ -9,6 +9,7 @@ import { paths } from '@/config/paths'
 import { useReceivables } from '@/features/payments/api/payments'
 import { AgeingChart } from '@/features/payments/components/ageing-chart'
 import { ReceivablesTable } from '@/features/payments/components/receivables-table'
+import { CardProblemsList } from '@/features/card-payments/components/card-problems-list'
 
 /** What the shops owe, by how late it is: the owner's receivables. */
 export function Component() {
@@ -28,6 +29,7 @@ export function Component() {
         <LoadingBlock label="Working out what is owed…" />
       ) : (
         <div className="flex flex-col gap-6">
+          <CardProblemsList invoiceHref={paths.owner.invoice} />
           <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
             <Stat
               label="Owed in total"

@@ -19,6 +19,8 @@ type Props = {
   rowHref?: (invoice: InvoiceListItem) => string
   toolbar?: ReactNode
   emptyMessage?: ReactNode
+  /** A command per row in a column of its own (the buyer's pay-by-card button), composed by the page. */
+  rowAction?: { header: string; cell: (invoice: InvoiceListItem) => ReactNode }
 }
 
 /** Invoices and credit notes: number, dates, status, and what was billed, paid and is still due. */
@@ -29,6 +31,7 @@ export function InvoicesTable({
   rowHref,
   toolbar,
   emptyMessage,
+  rowAction,
 }: Props) {
   const columns = useMemo(
     () =>
@@ -99,8 +102,17 @@ export function InvoicesTable({
               }),
             ]
           : []),
+        ...(rowAction
+          ? [
+              col.display({
+                id: 'action',
+                header: rowAction.header,
+                cell: (c) => rowAction.cell(c.row.original),
+              }),
+            ]
+          : []),
       ]),
-    [showShop, withPdf],
+    [showShop, withPdf, rowAction],
   )
   return (
     <DataTable
