@@ -141,7 +141,7 @@ function checkoutPage(s: Session, opts: { error?: string; values?: Record<string
 <title>Card payment: ${escape(s.description)}</title><style>${PAGE_CSS}</style></head><body><main>
 <div class="card">
 <h1>Pay by card</h1>
-<p>${escape(s.description)}${s.client_reference_id ? ` · reference ${escape(s.client_reference_id)}` : ''}</p>
+<p>${escape(s.description)}${s.client_reference_id && !s.description.includes(s.client_reference_id) ? ` · reference ${escape(s.client_reference_id)}` : ''}</p>
 <p class="amount">${escape(money(s.amount_total, s.currency))}</p>
 <p class="note">Test card page running on this machine: no card is charged. ${TEST_CARDS.pays.replace(/(\d{4})(?=\d)/g, '$1 ')} pays;
 ${TEST_CARDS.declined.replace(/(\d{4})(?=\d)/g, '$1 ')} is declined. Any future expiry date and any 3 digits.</p>

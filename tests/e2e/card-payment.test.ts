@@ -98,7 +98,7 @@ describe('a shop pays an invoice by card', () => {
     // The hosted card page, served by the card service (the fake, on loopback).
     await page.waitForURL(`${inject('services').cardUrl}/checkout/**`)
     await page.getByRole('heading', { name: 'Pay by card' }).waitFor()
-    expect(await page.locator('body').innerText()).toContain(`reference ${invoice.number}`)
+    expect(await page.locator('body').innerText()).toContain(`Invoice ${invoice.number}`)
     expect(await page.locator('.amount').innerText()).toBe(dollars(invoice.totalCents))
     await screenshot(page, 'card-checkout-page')
 

@@ -99,7 +99,14 @@ export function InvoiceSummary({ invoice }: { invoice: InvoiceDto }) {
                         <span className="block text-xs text-ink-600">Recorded by {p.recordedBy}</span>
                       ) : null}
                     </span>
-                    <span className="font-medium">{m(p.amountCents)}</span>
+                    <span className="text-right font-medium">
+                      {m(p.amountCents)}
+                      {p.refundedCents > 0 ? (
+                        <span className="block text-xs font-normal text-ink-600">
+                          {m(p.refundedCents)} refunded
+                        </span>
+                      ) : null}
+                    </span>
                   </li>
                 ))}
               </ul>
