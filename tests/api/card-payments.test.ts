@@ -323,6 +323,54 @@ describe('POST /api/webhooks/card', () => {
     expect(await count('card_events WHERE event_id = $1', [event.id])).toBe(1)
   })
 
+  it('records one payment when the same event arrives twice at once', async () => {
+    const inv = await shippedInvoice('A')
+    const checkout = await openCheckout(buyerA, inv.invoiceId)
+    const e = signedEvent({
+      id: checkout.sessionId,
+      amount_total: checkout.amountCents,
+      currency: 'usd',
+      payment_intent: `pi_test_race_${inv.invoiceId}`,
+    })
+    const post = () =>
+      anon.agent
+        .post('/api/webhooks/card')
+        .set('content-type', 'application/json')
+        .set('stripe-signature', e.header)
+        .send(e.payload)
+    const answers = await Promise.all([post(), post(), post()])
+    expect(answers.map((a) => a.status)).toEqual([200, 200, 200])
+    expect(answers.filter((a) => a.body.duplicate === false)).toHaveLength(1)
+    const after = await invoiceOf(owner, inv.invoiceId)
+    expect(after.payments).toHaveLength(1)
+    expect(after.status).toBe('paid')
+  })
+
+  it('does not overpay an invoice settled by transfer while the buyer was on the card page', async () => {
+    const inv = await shippedInvoice('A')
+    const checkout = await openCheckout(buyerA, inv.invoiceId)
+    expectStatus(
+      await owner.post(`/api/invoices/${inv.invoiceId}/payments`, {
+        method: 'bank_transfer',
+        amountCents: inv.totalCents,
+        receivedOn: await studioToday(),
+      }),
+      201,
+    )
+    const paid = await submitCard(checkout.url, TEST_CARDS.pays)
+    expect(paid.status).toBe(303)
+    const after = await invoiceOf(owner, inv.invoiceId)
+    expect(after.payments.map((p) => p.method)).toEqual(['bank_transfer'])
+    expect(after.paidCents).toBe(inv.totalCents)
+    const problems = expectStatus(await owner.get('/api/card-payments/problems'), 200).body.items as {
+      invoiceNumber: string | null
+      message: string
+    }[]
+    expect(problems.find((p) => p.invoiceNumber === inv.invoiceNumber)?.message).toMatch(
+      /paid in the meantime/,
+    )
+  })
+
   it('keeps a mismatched amount or currency as a problem for the owner, not a payment', async () => {
     const inv = await shippedInvoice('A')
     const checkout = await openCheckout(buyerA, inv.invoiceId)
