@@ -35,7 +35,7 @@ export function CardPaymentsPanel({ invoice, onChanged }: { invoice: InvoiceDto;
                   size="sm"
                   variant="secondary"
                   disabled={left === 0}
-                  aria-label={`Refund the card payment of ${m(p.amountCents)} from ${formatDate(p.receivedOn)}`}
+                  aria-label={`${left === 0 ? 'Refunded' : 'Refund'}: card payment of ${m(p.amountCents)} from ${formatDate(p.receivedOn)}`}
                   onClick={() => setRefunding(p)}
                 >
                   {left === 0 ? 'Refunded' : 'Refund'}

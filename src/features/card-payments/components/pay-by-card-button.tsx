@@ -23,7 +23,7 @@ export function PayByCardButton({ invoice, size = 'sm' }: Props) {
     <Button
       size={size}
       loading={start.isPending || start.isSuccess}
-      aria-label={`Pay invoice ${invoice.number} by card`}
+      aria-label={`Pay by card: invoice ${invoice.number}`}
       onClick={() =>
         start.mutate(undefined, {
           onSuccess: ({ checkout }) => window.location.assign(checkout.url),
