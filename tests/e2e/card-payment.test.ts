@@ -3,16 +3,18 @@
  * prepay shop (invoiced at confirmation) clicks "Pay by card" on the invoices screen, lands on the
  * hosted card page, is declined once (the invoice stays open), pays with the test card, comes back
  * to the return page that waits for the signed confirmation, and sees the invoice paid. The owner
- * then refunds part of it from the invoice screen, and the buyer cancels a second attempt.
+ * then refunds part of it from the invoice screen, the buyer cancels a second attempt, and a
+ * mismatched card payment waits on Receivables until the owner dismisses it.
  */
 import { randomUUID } from 'node:crypto'
+import Stripe from 'stripe'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { inject } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
 import { waitForMail } from '@tests/factories/mail'
 import { DEMO } from '@tests/factories/api-client'
 import { TEST_CARDS } from '../../scripts/lib/card-service-fake'
-import { axeViolations, launch, newPage, screenshot, signIn } from './browser'
+import { axeViolations, baseUrl, launch, newPage, screenshot, signIn } from './browser'
 
 let browser: Browser
 beforeAll(async () => {
@@ -105,6 +107,7 @@ describe('a shop pays an invoice by card', () => {
     await page.getByRole('heading', { name: 'Pay by card' }).waitFor()
     expect(await page.locator('body').innerText()).toContain(`Invoice ${invoice.number}`)
     expect(await page.locator('.amount').innerText()).toBe(dollars(invoice.totalCents))
+    expect(await axeViolations(page)).toEqual([])
     await screenshot(page, 'card-checkout-page')
 
     await fillCard(page, TEST_CARDS.declined.replace(/(\d{4})(?=\d)/g, '$1 '))
@@ -169,6 +172,51 @@ describe('a shop pays an invoice by card', () => {
     await screenshot(page, 'card-return-cancelled')
     const after = await call(page, 'GET', `/api/invoices/${invoice.id}`)
     expect(after.invoice.paidCents).toBe(invoice.totalCents - 1250)
+    await context.close()
+  })
+
+  it('a card payment that does not match waits on Receivables until the owner dismisses it', async () => {
+    const payload = JSON.stringify({
+      id: `evt_test_${randomUUID().replace(/-/g, '')}`,
+      object: 'event',
+      type: 'checkout.session.completed',
+      data: {
+        object: {
+          object: 'checkout.session',
+          id: `cs_test_${randomUUID().replace(/-/g, '')}`,
+          payment_status: 'paid',
+          amount_total: 4321,
+          currency: 'usd',
+          payment_intent: 'pi_test_stray_e2e',
+        },
+      },
+    })
+    const signer = new Stripe('sk_test_signing_only')
+    const r = await fetch(`${baseUrl()}/api/webhooks/card`, {
+      method: 'POST',
+      headers: {
+        'content-type': 'application/json',
+        'stripe-signature': signer.webhooks.generateTestHeaderString({
+          payload,
+          secret: inject('services').cardWebhookSecret,
+        }),
+      },
+      body: payload,
+    })
+    expect(await r.json()).toMatchObject({ outcome: 'problem' })
+
+    const { page, context } = await newPage(browser)
+    await signIn(page, 'owner')
+    await page.goto('/studio/receivables')
+    const list = page.getByRole('list', { name: 'Card payments to look at' })
+    const item = list.getByRole('listitem').filter({ hasText: 'pi_test_stray_e2e' })
+    await item.waitFor()
+    expect(await item.innerText()).toContain('received $43.21')
+    await page.waitForLoadState('networkidle')
+    expect(await axeViolations(page)).toEqual([])
+    await screenshot(page, 'owner-card-problems')
+    await item.getByRole('button', { name: 'Dismiss' }).click()
+    await expect.poll(() => item.count()).toBe(0)
     await context.close()
   })
 })
