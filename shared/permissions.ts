@@ -25,6 +25,7 @@ export const RIGHTS = {
   'invoices.manage': ['owner'],
   'payments.manage': ['owner'],
   'reports.view': ['owner'],
+  'planning.manage': ['owner'],
 } as const satisfies Record<string, readonly Role[]>
 
 export type Right = keyof typeof RIGHTS
