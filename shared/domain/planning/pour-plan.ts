@@ -137,7 +137,8 @@ export interface ProductPlan {
  * the supply first (the earliest curing batches, then ready stock), since they wait for exactly
  * those bars; what no supply covers is short today. Planned pours count as curing batches ready
  * on their pour date + cure days. The suggestion covers `coverWeeks` of demand after the run-out
- * date plus any uncovered pre-orders, in whole moulds.
+ * date plus any uncovered pre-orders, less the bars that turn ready after the run-out date, in
+ * whole moulds; none when those later bars already cover it.
  */
 export function planProduct(input: ProductPlanInput, opts: PlanOptions): ProductPlan {
   requireWhole(input.preorderBars, 0, 'invalid_bars', 'preorderBars')
@@ -178,8 +179,14 @@ export function planProduct(input: ProductPlanInput, opts: PlanOptions): Product
   if (compareIso(latest, addDays(opts.today, opts.horizonWeeks * 7)) > 0) {
     return { ...base, runOutDate: runOut, latestPourDate: latest, suggestion: null }
   }
-  const short = owed + Math.ceil(input.weeklyDemandBars * opts.coverWeeks - 1e-9)
-  const moulds = Math.max(1, suggestedBatchCount(short, input.sellableBarsPerMould))
+  // Bars that turn ready after the shelf has emptied (a late batch, a planned pour) still serve
+  // the weeks the new pour is to cover: they come off what it must make.
+  const arrivingLater = supply
+    .filter((s) => compareIso(s.readyDate, runOut) > 0)
+    .reduce((n, s) => n + s.bars, 0)
+  const short = owed + Math.ceil(input.weeklyDemandBars * opts.coverWeeks - 1e-9) - arrivingLater
+  if (short <= 0) return { ...base, runOutDate: runOut, latestPourDate: latest, suggestion: null }
+  const moulds = suggestedBatchCount(short, input.sellableBarsPerMould)
   const late = compareIso(latest, opts.today) < 0
   return {
     ...base,

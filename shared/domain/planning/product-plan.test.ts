@@ -82,6 +82,23 @@ describe('planProduct', () => {
       source:
         'hand calculation: 36 left on day 28 when 24 more are ready → 60 bars, 70 more days: day 98; latest pour beyond 8 weeks',
     },
+    {
+      name: 'a late planned pour still counts against the suggestion',
+      input: { readyBars: 30, weeklyDemandBars: 10.5, planned: [{ pourDate: '2026-12-01', bars: 10 }] },
+      runOut: '2026-12-21',
+      latest: '2026-11-16',
+      suggestion: { pourBy: '2026-12-01', late: true, moulds: 3, bars: 36 },
+      source:
+        'hand calculation: 30 bars at 1.5 a day last 20 days; the planned 10 are ready on day 28; 42 − 10 = 32 → 3 moulds',
+    },
+    {
+      name: 'a curing batch after the run-out covers the weeks after it',
+      input: { readyBars: 7, weeklyDemandBars: 7, curing: [{ readyDate: '2026-12-20', bars: 40 }] },
+      runOut: '2026-12-08',
+      latest: '2026-11-03',
+      suggestion: null,
+      source: 'hand calculation: empty on day 7, the 40 bars (more than 4 weeks × 7) arrive on day 19',
+    },
   ] as {
     name: string
     input: Partial<ProductPlanInput>

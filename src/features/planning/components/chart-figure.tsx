@@ -25,7 +25,7 @@ export function ChartFigure({
         </span>
         {description ? <span className="block text-sm text-ink-700">{description}</span> : null}
       </figcaption>
-      <div aria-hidden="true" className="min-w-0 overflow-x-auto">
+      <div aria-hidden="true" className="min-w-0">
         {chart}
       </div>
       <details className="text-sm">

@@ -26,7 +26,13 @@ export function DemandChart({
       title="Demand per product"
       description={`Cases a week over the last ${windowWeeks} ${windowWeeks === 1 ? 'week' : 'weeks'}, with open pre-orders on top.`}
       chart={
-        <BarChart width={width} height={260} data={data} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+        <BarChart
+          responsive
+          accessibilityLayer={false}
+          style={{ width: '100%', maxWidth: width, height: 260 }}
+          data={data}
+          margin={{ top: 8, right: 8, bottom: 8, left: 0 }}
+        >
           <CartesianGrid stroke={CHART.grid} vertical={false} />
           <XAxis
             dataKey="sku"

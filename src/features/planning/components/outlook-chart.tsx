@@ -18,7 +18,13 @@ export function OutlookChart({ product, width = 560 }: { product: PlanProduct; w
       title={`Stock outlook: ${product.name}`}
       description={`Ready and curing bars at the start of each week, at ${product.weeklyDemandBars} bars a week${product.plannedBars ? ', planned pours counted as curing' : ''}.`}
       chart={
-        <BarChart width={width} height={260} data={data} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+        <BarChart
+          responsive
+          accessibilityLayer={false}
+          style={{ width: '100%', maxWidth: width, height: 260 }}
+          data={data}
+          margin={{ top: 8, right: 8, bottom: 8, left: 0 }}
+        >
           <CartesianGrid stroke={CHART.grid} vertical={false} />
           <XAxis dataKey="week" tick={{ fontSize: 11, fill: CHART.ink }} />
           <YAxis tick={{ fontSize: 12, fill: CHART.ink }} width={40} />

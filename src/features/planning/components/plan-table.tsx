@@ -27,15 +27,22 @@ export function PlanTable({
         </span>
       ),
     }),
-    col.accessor('readyBars', { header: 'Ready', meta: { align: 'end' } }),
-    col.accessor((p) => p.curingBars + p.plannedBars, {
-      id: 'coming',
-      header: 'Curing + planned',
+    col.accessor('readyBars', {
+      header: 'Ready',
       meta: { align: 'end' },
-      cell: (c) =>
-        c.row.original.plannedBars
-          ? `${c.row.original.curingBars} + ${c.row.original.plannedBars}`
-          : String(c.row.original.curingBars),
+      cell: (c) => {
+        const p = c.row.original
+        return (
+          <span>
+            {p.readyBars}
+            {p.curingBars || p.plannedBars ? (
+              <span className="block text-xs text-ink-700">
+                + {p.curingBars} curing{p.plannedBars ? `, ${p.plannedBars} planned` : ''}
+              </span>
+            ) : null}
+          </span>
+        )
+      },
     }),
     col.accessor('weeklyDemandBars', {
       header: 'Bars a week',
@@ -79,11 +86,7 @@ export function PlanTable({
       cell: (c) => {
         const p = c.row.original
         if (!p.suggestion)
-          return (
-            <span className="text-ink-700">
-              {p.runOutDate ? 'Not yet: stock lasts past the plan' : 'None'}
-            </span>
-          )
+          return <span className="text-ink-700">{p.runOutDate ? 'None needed within the plan' : 'None'}</span>
         return (
           <span className="flex flex-col items-start gap-1">
             <span>
@@ -91,13 +94,17 @@ export function PlanTable({
               bars
             </span>
             {p.shortIngredients.length ? (
-              <span className="text-xs text-clay-700">Short of {p.shortIngredients.join(', ')}</span>
+              <span className="text-xs text-clay-700" title={p.shortIngredients.join(', ')}>
+                {p.shortIngredients.length === 1
+                  ? `${p.shortIngredients[0]} to buy`
+                  : `${p.shortIngredients.length} ingredients to buy`}
+              </span>
             ) : null}
             <Button
               size="sm"
               variant="secondary"
               onClick={() => onPlan(p)}
-              aria-label={`Plan the pour of ${p.name}`}
+              aria-label={`Plan this pour of ${p.name}`}
             >
               Plan this pour
             </Button>

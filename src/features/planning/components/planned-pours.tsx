@@ -32,7 +32,7 @@ export function PlannedPours({
             </span>
           </span>
           <span className="flex gap-2">
-            <LinkButton size="sm" to={pourHref(p)} aria-label={`Pour ${p.productName} now`}>
+            <LinkButton size="sm" to={pourHref(p)} aria-label={`Pour it: ${p.productName}`}>
               Pour it
             </LinkButton>
             <Button

@@ -32,10 +32,11 @@ export function SalesChart({
       <figcaption id="sales-chart-title" className="font-medium text-ink-900">
         Revenue and margin by {SALES_GROUP_LABELS[report.by].toLowerCase()}
       </figcaption>
-      <div aria-hidden="true" className="min-w-0 overflow-x-auto">
+      <div aria-hidden="true" className="min-w-0">
         <BarChart
-          width={width}
-          height={height}
+          responsive
+          accessibilityLayer={false}
+          style={{ width: '100%', maxWidth: width, height: height }}
           data={data}
           layout="vertical"
           margin={{ top: 4, right: 16, bottom: 4, left: 8 }}
