@@ -89,7 +89,7 @@ export function Component() {
             ordersToConfirm: `${paths.owner.orders}?status=placed`,
             packing: paths.owner.packing,
             overdue: `${paths.owner.invoices}?status=overdue`,
-            invoices: paths.owner.invoices,
+            dueThisWeek: paths.owner.invoices,
             batch: paths.owner.batch,
             account: paths.owner.account,
             plan: paths.owner.plan,

@@ -12,7 +12,7 @@ export type TodayLinks = {
   ordersToConfirm: string
   packing: string
   overdue: string
-  invoices: string
+  dueThisWeek: string
   batch: (id: number) => string
   account: (id: number) => string
   plan: string
@@ -25,14 +25,6 @@ const qty = (q: number, unit: 'g' | 'each') =>
     : q >= 1000
       ? `${(q / 1000).toLocaleString('en-US', { maximumFractionDigits: 2 })} kg`
       : `${q.toLocaleString('en-US', { maximumFractionDigits: 1 })} g`
-
-function LinkedStat({ to, children }: { to: string; children: ReactNode }) {
-  return (
-    <Link to={to} className="rounded-card no-underline hover:opacity-90">
-      {children}
-    </Link>
-  )
-}
 
 function ListCard({
   title,
@@ -71,50 +63,58 @@ export function TodayPanel({
       <h2 id="today-heading" className="text-lg font-medium text-ink-900">
         Today, {formatDate(data.today)}
       </h2>
+      {/* Link words stay clear of the sidebar's names (Orders, Invoices, Packing…). */}
       <div className="grid grid-cols-2 gap-4 lg:grid-cols-5">
-        <LinkedStat to={links.applications}>
-          <Stat
-            label="Applications to review"
-            value={data.applications}
-            tone={data.applications ? 'honey' : 'default'}
-          />
-        </LinkedStat>
-        <LinkedStat to={links.ordersToConfirm}>
-          <Stat
-            label="Orders to confirm"
-            value={data.ordersToConfirm}
-            tone={data.ordersToConfirm ? 'honey' : 'default'}
-          />
-        </LinkedStat>
-        <LinkedStat to={links.packing}>
-          <Stat
-            label="Packing backlog"
-            value={backlog}
-            hint={`${data.packing.toPack} to pack, ${data.packing.onTheBench} on the bench, ${data.packing.packedToShip} to ship`}
-          />
-        </LinkedStat>
-        <LinkedStat to={links.overdue}>
-          <Stat
-            label="Invoices overdue"
-            value={data.invoices.overdue.count}
-            hint={`${formatMoney(data.invoices.overdue.outstandingCents, currency)} outstanding`}
-            tone={data.invoices.overdue.count ? 'clay' : 'default'}
-          />
-        </LinkedStat>
-        <LinkedStat to={links.invoices}>
-          <Stat
-            label="Invoices due this week"
-            value={data.invoices.dueThisWeek.count}
-            hint={`${formatMoney(data.invoices.dueThisWeek.outstandingCents, currency)} by ${formatDate(data.weekEnd)}`}
-          />
-        </LinkedStat>
+        <Stat
+          label="Applications to review"
+          value={data.applications}
+          tone={data.applications ? 'honey' : 'default'}
+          hint={<Link to={links.applications}>Review them</Link>}
+        />
+        <Stat
+          label="Orders to confirm"
+          value={data.ordersToConfirm}
+          tone={data.ordersToConfirm ? 'honey' : 'default'}
+          hint={<Link to={links.ordersToConfirm}>Confirm them</Link>}
+        />
+        <Stat
+          label="Packing backlog"
+          value={backlog}
+          hint={
+            <>
+              {data.packing.toPack} to pack, {data.packing.onTheBench} on the bench,{' '}
+              {data.packing.packedToShip} to ship · <Link to={links.packing}>Open the bench</Link>
+            </>
+          }
+        />
+        <Stat
+          label="Invoices overdue"
+          value={data.invoices.overdue.count}
+          hint={
+            <>
+              {formatMoney(data.invoices.overdue.outstandingCents, currency)} outstanding ·{' '}
+              <Link to={links.overdue}>Chase them</Link>
+            </>
+          }
+          tone={data.invoices.overdue.count ? 'clay' : 'default'}
+        />
+        <Stat
+          label="Invoices due this week"
+          value={data.invoices.dueThisWeek.count}
+          hint={
+            <>
+              {formatMoney(data.invoices.dueThisWeek.outstandingCents, currency)} by{' '}
+              {formatDate(data.weekEnd)} · <Link to={links.dueThisWeek}>See them</Link>
+            </>
+          }
+        />
       </div>
       <div className="grid gap-6 lg:grid-cols-2">
         <ListCard
           title="Pours due this week"
           description="From the pour plan: pour these by the day shown to stay in stock."
           empty={data.poursDue.length ? null : 'No pour is due this week.'}
-          action={<Link to={links.plan}>Pour plan</Link>}
+          action={<Link to={links.plan}>See the plan</Link>}
         >
           <ul className="divide-y divide-cream-200 text-sm" aria-label="Pours due this week">
             {data.poursDue.map((p) => (
@@ -137,7 +137,7 @@ export function TodayPanel({
           title="Ingredients running low"
           description="Less on hand than the planned and suggested pours need."
           empty={data.lowIngredients.length ? null : 'Enough of everything for the pours in the plan.'}
-          action={<Link to={links.purchases}>Purchases</Link>}
+          action={<Link to={links.purchases}>Buy supplies</Link>}
         >
           <ul className="divide-y divide-cream-200 text-sm" aria-label="Ingredients running low">
             {data.lowIngredients.map((i) => (
