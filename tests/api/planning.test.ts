@@ -242,6 +242,26 @@ describe('planned pours', () => {
     expect(await count('SELECT count(*) FROM batches')).toBe(batches)
   })
 
+  it('refuses a batch naming a planned pour that is not one, writing nothing', async () => {
+    const batches = await count('SELECT count(*) FROM batches')
+    for (const [plannedPourId, status] of [
+      [0, 400],
+      ['soon', 400],
+      [99_999_999, 400],
+    ] as [unknown, number][]) {
+      const r = await owner.post('/api/batches', {
+        productId: steady.productId,
+        pourDate: today,
+        barsCut: 14,
+        barsKeptBack: 2,
+        plannedPourId,
+      })
+      expect(r.status).toBe(status)
+      expect(r.body.error.details.map((d: { field: string }) => d.field)).toContain('plannedPourId')
+    }
+    expect(await count('SELECT count(*) FROM batches')).toBe(batches)
+  })
+
   it('refuses a batch of another product than the plan, writing nothing', async () => {
     const other = (
       await owner.post('/api/planning/pours', { productId: idle.productId, pourDate: today, moulds: 1 })

@@ -1,5 +1,5 @@
 import { useSearchParams } from 'react-router-dom'
-import { addDays, compareIso, isValidIsoDate } from '@shared/domain/dates/dates'
+import { addDays, compareIso, isoToday, isValidIsoDate } from '@shared/domain/dates/dates'
 import { SALES_GROUPS, SALES_GROUP_LABELS, SalesQuerySchema } from '@shared/schemas/sales'
 import type { SalesGroup } from '@shared/schemas/sales'
 import { buttonClasses } from '@/components/ui/button'
@@ -9,7 +9,6 @@ import { Money } from '@/components/ui/money'
 import { PageHeader } from '@/components/ui/page-header'
 import { LoadingBlock } from '@/components/ui/spinner'
 import { Stat } from '@/components/ui/stat'
-import { useToday } from '@/features/home/api/today'
 import { salesCsvHref, useSalesReport } from '@/features/sales/api/sales'
 import { SalesChart } from '@/features/sales/components/sales-chart'
 import { SalesTable } from '@/features/sales/components/sales-table'
@@ -18,8 +17,9 @@ import { useSettings } from '@/features/studio/api/studio'
 /** Revenue, bars sold and margin by product, tier or shop, for the orders shipped in a period. */
 export function Component() {
   const [search, setSearch] = useSearchParams()
-  const day = useToday().data?.today
   const settings = useSettings()
+  // The studio's own calendar day, as the API counts ship days.
+  const day = settings.data ? isoToday(new Date(), settings.data.timeZone) : undefined
   const currency = settings.data?.currency ?? 'USD'
   const to = search.get('to') ?? day ?? ''
   const from = search.get('from') ?? (day ? addDays(day, -89) : '')
