@@ -72,6 +72,25 @@ describe('the owner plans and pours', () => {
     await context.close()
   })
 
+  it('the plan and the sales fit a phone-sized screen', async () => {
+    const { page, context } = await newPage(browser, { width: 390, height: 844 })
+    await signIn(page, 'owner')
+    for (const [path, heading] of [
+      ['/studio/plan', 'Pour plan'],
+      ['/studio/sales', 'Sales'],
+    ]) {
+      await page.goto(path)
+      await page.getByRole('heading', { level: 1, name: heading }).waitFor()
+      await page.waitForLoadState('networkidle')
+      const overflow = await page.evaluate(
+        () => document.documentElement.scrollWidth - document.documentElement.clientWidth,
+      )
+      expect(overflow, path).toBeLessThanOrEqual(0)
+      await screenshot(page, `${heading === 'Sales' ? 'sales' : 'plan'}-owner-phone`)
+    }
+    await context.close()
+  })
+
   it('shows sales by product and by shop, with a CSV to download', async () => {
     const { page, context } = await newPage(browser)
     await signIn(page, 'owner')
