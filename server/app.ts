@@ -19,16 +19,19 @@ import { cartRoutes } from '@server/modules/cart/cart.routes'
 import { cardPaymentsRoutes, cardWebhookRoutes } from '@server/modules/card-payments/card-payments.routes'
 import { catalogueRoutes } from '@server/modules/catalogue/catalogue.routes'
 import { healthRoutes } from '@server/modules/health/health.routes'
+import { homeRoutes } from '@server/modules/home/home.routes'
 import { ingredientsRoutes } from '@server/modules/ingredients/ingredients.routes'
 import { invoicesRoutes } from '@server/modules/invoices/invoices.routes'
 import { ordersCsvRoutes, ordersRoutes } from '@server/modules/orders/orders.routes'
 import { packingRoutes } from '@server/modules/packing/packing.routes'
 import { paymentsRoutes } from '@server/modules/payments/payments.routes'
+import { planningRoutes } from '@server/modules/planning/planning.routes'
 import { priceTiersRoutes } from '@server/modules/price-tiers/price-tiers.routes'
 import { pricingRoutes } from '@server/modules/pricing/pricing.routes'
 import { purchasesRoutes } from '@server/modules/purchases/purchases.routes'
 import { productsRoutes } from '@server/modules/products/products.routes'
 import { recipesRoutes } from '@server/modules/recipes/recipes.routes'
+import { salesRoutes } from '@server/modules/sales/sales.routes'
 import { settingsRoutes, studioRoutes } from '@server/modules/settings/settings.routes'
 import { shipmentsRoutes } from '@server/modules/shipments/shipments.routes'
 import { shopsRoutes } from '@server/modules/shops/shops.routes'
@@ -129,6 +132,9 @@ export function createApp(opts: AppOptions = {}) {
   api.use(invoicesRoutes()) // /invoices(.csv), /invoices/:id/*, /orders/:id/invoice
   api.use(paymentsRoutes()) // /invoices/:id/{payments,remind}, /payments(.csv), /receivables
   api.use(cardPaymentsRoutes()) // /invoices/:id/card-checkout(s), /payments/:id/refunds, /card-payments/*
+  api.use('/home', homeRoutes())
+  api.use('/planning', planningRoutes())
+  api.use(salesRoutes()) // /sales(.csv)
   api.use('/catalogue', catalogueRoutes())
   api.use('/cart', cartRoutes())
   api.use('/orders.csv', ordersCsvRoutes())

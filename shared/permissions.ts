@@ -26,6 +26,7 @@ export const RIGHTS = {
   'invoices.pay': ['buyer'],
   'payments.manage': ['owner'],
   'reports.view': ['owner'],
+  'planning.manage': ['owner'],
 } as const satisfies Record<string, readonly Role[]>
 
 export type Right = keyof typeof RIGHTS

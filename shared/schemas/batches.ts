@@ -102,6 +102,12 @@ export const RecordBatchSchema = z
     keptBackReason: optionalText(200),
     location: optionalText(60),
     notes: optionalText(2000),
+    /** The planned pour this batch pours: recording it marks the plan poured. */
+    plannedPourId: z.coerce
+      .number<string | number>()
+      .int('Not a planned pour.')
+      .positive('Not a planned pour.')
+      .nullish(),
   })
   .superRefine((v, ctx) => {
     if (v.barsKeptBack >= v.barsCut) {

@@ -66,6 +66,8 @@ export function createRouter() {
                 { path: paths.owner.invoices, lazy: () => import('@/app/routes/owner-invoices') },
                 { path: paths.owner.invoice(':invoiceId'), lazy: () => import('@/app/routes/owner-invoice') },
                 { path: paths.owner.receivables, lazy: () => import('@/app/routes/owner-receivables') },
+                { path: paths.owner.plan, lazy: () => import('@/app/routes/owner-plan') },
+                { path: paths.owner.sales, lazy: () => import('@/app/routes/owner-sales') },
               ],
             },
             {

@@ -38,6 +38,8 @@ export const paths = {
     invoices: '/studio/invoices',
     invoice: (id: number | string) => `/studio/invoices/${id}`,
     receivables: '/studio/receivables',
+    plan: '/studio/plan',
+    sales: '/studio/sales',
   },
   packer: {
     home: '/packing',
@@ -68,11 +70,12 @@ export type NavItem = { to: string; label: string; end?: boolean; group?: string
 /** Each role's own navigation. */
 export const navFor: Record<Role, NavItem[]> = {
   owner: [
-    { to: paths.owner.home, label: 'Overview', end: true },
+    { to: paths.owner.home, label: 'Today', end: true },
     { to: paths.owner.ingredients, label: 'Ingredients', group: 'Making' },
     { to: paths.owner.purchases, label: 'Purchases', group: 'Making' },
     { to: paths.owner.recipes, label: 'Recipes', group: 'Making' },
     { to: paths.owner.batches, label: 'Batches', group: 'Making' },
+    { to: paths.owner.plan, label: 'Pour plan', group: 'Making' },
     { to: paths.owner.trace, label: 'Trace a lot', group: 'Making' },
     { to: paths.owner.orders, label: 'Orders', group: 'Selling' },
     { to: paths.owner.packing, label: 'Packing', group: 'Selling' },
@@ -81,6 +84,7 @@ export const navFor: Record<Role, NavItem[]> = {
     { to: paths.owner.accounts, label: 'Shop accounts', group: 'Selling' },
     { to: paths.owner.invoices, label: 'Invoices', group: 'Money' },
     { to: paths.owner.receivables, label: 'Receivables', group: 'Money' },
+    { to: paths.owner.sales, label: 'Sales', group: 'Money' },
     { to: paths.owner.team, label: 'Team', group: 'Studio' },
     { to: paths.owner.settings, label: 'Settings', group: 'Studio' },
   ],

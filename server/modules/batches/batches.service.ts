@@ -30,6 +30,7 @@ import { batchNeeds, roundQty } from '@server/modules/batches/batch-needs'
 import type { Need } from '@server/modules/batches/batch-needs'
 import { shipmentsForBatches } from '@server/modules/batches/shipments'
 import { recordStockMove, toMoveRow } from '@server/modules/batches/stock-moves.service'
+import { markPlannedPourPoured } from '@server/modules/planning/planned-pours.service'
 import { recipeSnapshot } from '@server/modules/recipes/recipe-cost.service'
 import { getSettings } from '@server/modules/settings/settings.service'
 
@@ -562,6 +563,7 @@ export async function recordBatch(
       },
       t,
     )
+    if (input.plannedPourId) await markPlannedPourPoured(input.plannedPourId, product.id, batchId, t)
     // The last step: the sellable bars enter the ledger.
     await recordStockMove({ batchId, kind: 'made', bars: sellableBars, userId }, t)
     return batchId

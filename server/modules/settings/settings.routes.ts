@@ -1,5 +1,6 @@
 import { Router } from 'express'
 import type { Request, Response } from 'express'
+import { PlanningSettingsSchema } from '@shared/schemas/planning'
 import { StudioProfileSchema } from '@shared/schemas/settings-form'
 import { currentUser, requireAuth, requireRight } from '@server/middlewares/require-role'
 import { body, validate } from '@server/middlewares/validate'
@@ -25,6 +26,12 @@ export function settingsRoutes() {
     const studio = body(req, StudioProfileSchema)
     const settings = await updateSettings({ studio: { ...studio, address: studio.address.filter(Boolean) } })
     await audit({ userId: currentUser(req).id, action: 'settings.studio', entity: 'settings' })
+    res.json({ settings })
+  })
+  r.put('/planning', validate({ body: PlanningSettingsSchema }), async (req: Request, res: Response) => {
+    const input = body(req, PlanningSettingsSchema)
+    const settings = await updateSettings(input)
+    await audit({ userId: currentUser(req).id, action: 'settings.planning', entity: 'settings', data: input })
     res.json({ settings })
   })
   return r

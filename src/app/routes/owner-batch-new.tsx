@@ -1,4 +1,4 @@
-import { useNavigate } from 'react-router-dom'
+import { useNavigate, useSearchParams } from 'react-router-dom'
 import { formatDate } from '@shared/domain/dates/dates'
 import { LinkButton } from '@/components/ui/button'
 import { EmptyState } from '@/components/ui/empty-state'
@@ -8,10 +8,15 @@ import { toast } from '@/components/ui/toast'
 import { paths } from '@/config/paths'
 import { usePourableProducts } from '@/features/batches/api/batches'
 import { BatchForm } from '@/features/batches/components/batch-form'
+import { usePlannedPour } from '@/features/planning/api/plan'
 
 export function Component() {
   const products = usePourableProducts()
   const navigate = useNavigate()
+  const [search] = useSearchParams()
+  const planId = Number(search.get('plan'))
+  const planned = usePlannedPour(Number.isSafeInteger(planId) && planId > 0 ? planId : null)
+  const open = planned.data?.status === 'planned' ? planned.data : null
   return (
     <>
       <PageHeader
@@ -19,7 +24,23 @@ export function Component() {
         title="Record a batch"
         description="Once poured: the lots it used come off the shelves, it gets its lot code, and it starts to cure."
       />
-      {products.isPending ? (
+      {planned.data && !open ? (
+        <p
+          className="mb-4 rounded-card bg-honey-50 px-4 py-3 text-sm text-honey-700 ring-1 ring-honey-500/30"
+          role="status"
+        >
+          That planned pour was already {planned.data.status}; this is a batch of its own.
+        </p>
+      ) : null}
+      {planned.isError ? (
+        <p
+          className="mb-4 rounded-card bg-honey-50 px-4 py-3 text-sm text-honey-700 ring-1 ring-honey-500/30"
+          role="status"
+        >
+          That planned pour was not found; this is a batch of its own.
+        </p>
+      ) : null}
+      {products.isPending || planned.isLoading ? (
         <LoadingBlock />
       ) : (products.data ?? []).length === 0 ? (
         <EmptyState
@@ -30,6 +51,16 @@ export function Component() {
       ) : (
         <BatchForm
           products={products.data ?? []}
+          plan={
+            open
+              ? {
+                  id: open.id,
+                  productId: open.productId,
+                  oilWeightG: open.oilWeightG,
+                  description: `Pouring the planned batch of ${open.productName}: ${open.moulds} ${open.moulds === 1 ? 'mould' : 'moulds'}, planned for ${formatDate(open.pourDate)}.`,
+                }
+              : null
+          }
           onRecorded={(b) => {
             toast.success(
               `Batch ${b.lotCode} recorded: ${b.sellableBars} bars, ready on ${formatDate(b.readyDate)}.`,

@@ -1,5 +1,4 @@
 import { useMemo } from 'react'
-import { Link } from 'react-router-dom'
 import { formatDate } from '@shared/domain/dates/dates'
 import { PAYMENT_TERMS_LABELS, SHOP_STATUS_LABELS } from '@shared/schemas/shops'
 import type { ShopSummary } from '@shared/schemas/shops'
@@ -12,8 +11,10 @@ import { LoadingBlock } from '@/components/ui/spinner'
 import { Stat } from '@/components/ui/stat'
 import { paths } from '@/config/paths'
 import { useMe } from '@/features/auth/api/me'
+import { useToday } from '@/features/home/api/today'
+import { TodayPanel } from '@/features/home/components/today-panel'
 import { useShopAccounts } from '@/features/shops/api/accounts'
-import { useStudioProfile } from '@/features/studio/api/studio'
+import { useSettings, useStudioProfile } from '@/features/studio/api/studio'
 import { useUsers } from '@/features/team/api/users'
 
 const col = dataTableColumnHelper<ShopSummary>()
@@ -32,12 +33,28 @@ const columns = col.columns([
   col.accessor((s) => SHOP_STATUS_LABELS[s.status], {
     id: 'status',
     header: 'Status',
-    cell: (c) => <Badge tone={c.row.original.status === 'active' ? 'green' : c.row.original.status === 'applied' ? 'sky' : 'honey'}>{c.getValue()}</Badge>,
+    cell: (c) => (
+      <Badge
+        tone={
+          c.row.original.status === 'active' ? 'green' : c.row.original.status === 'applied' ? 'sky' : 'honey'
+        }
+      >
+        {c.getValue()}
+      </Badge>
+    ),
   }),
-  col.accessor((s) => (s.certificateOnFile ? (s.certificateExpiresOn ? `until ${formatDate(s.certificateExpiresOn)}` : 'on file') : 'none'), {
-    id: 'certificate',
-    header: 'Resale certificate',
-  }),
+  col.accessor(
+    (s) =>
+      s.certificateOnFile
+        ? s.certificateExpiresOn
+          ? `until ${formatDate(s.certificateExpiresOn)}`
+          : 'on file'
+        : 'none',
+    {
+      id: 'certificate',
+      header: 'Resale certificate',
+    },
+  ),
 ])
 
 export function Component() {
@@ -45,11 +62,12 @@ export function Component() {
   const studio = useStudioProfile()
   const shops = useShopAccounts()
   const users = useUsers()
+  const today = useToday()
+  const settings = useSettings()
   const counts = useMemo(() => {
     const list = shops.data ?? []
     return {
       active: list.filter((s) => s.status === 'active').length,
-      applied: list.filter((s) => s.status === 'applied').length,
       held: list.filter((s) => s.status === 'on_hold').length,
     }
   }, [shops.data])
@@ -59,27 +77,38 @@ export function Component() {
     <>
       <PageHeader
         title={`Good to see you, ${me.data?.name.split(' ')[0] ?? ''}`}
-        description={studio.data ? `${studio.data.name} · wholesale overview` : 'Wholesale overview'}
+        description={studio.data ? `${studio.data.name} · what needs you today` : 'What needs you today'}
         actions={<LinkButton to={paths.owner.team}>Invite someone</LinkButton>}
       />
-      <div className="mb-6 grid grid-cols-2 gap-4 lg:grid-cols-4">
+      {today.data ? (
+        <TodayPanel
+          data={today.data}
+          currency={settings.data?.currency ?? 'USD'}
+          links={{
+            applications: `${paths.owner.accounts}?status=applied`,
+            ordersToConfirm: `${paths.owner.orders}?status=placed`,
+            packing: paths.owner.packing,
+            overdue: `${paths.owner.invoices}?status=overdue`,
+            dueThisWeek: paths.owner.invoices,
+            batch: paths.owner.batch,
+            account: paths.owner.account,
+            plan: paths.owner.plan,
+            purchases: paths.owner.purchases,
+          }}
+        />
+      ) : (
+        <LoadingBlock label="Gathering today…" />
+      )}
+      <div className="mb-6 grid grid-cols-2 gap-4 lg:grid-cols-3">
         <Stat label="Active shop accounts" value={shops.isPending ? '…' : counts.active} />
-        <Link
-          to={`${paths.owner.accounts}?status=applied`}
-          className="rounded-card no-underline hover:opacity-90"
-        >
-          <Stat
-            label="Applications waiting"
-            value={shops.isPending ? '…' : counts.applied}
-            hint="Open to review them"
-            tone={counts.applied ? 'honey' : 'default'}
-          />
-        </Link>
         <Stat label="Accounts on hold" value={shops.isPending ? '…' : counts.held} />
         <Stat label="Studio staff" value={users.isPending ? '…' : staff} />
       </div>
       <Card>
-        <CardHeader title="Shop accounts" description="Every wholesale account with its tier, terms and certificate." />
+        <CardHeader
+          title="Shop accounts"
+          description="Every wholesale account with its tier, terms and certificate."
+        />
         <CardBody>
           {shops.isPending ? (
             <LoadingBlock />

@@ -2,6 +2,7 @@ import { formatCents } from '@shared/domain/money/money'
 import { Card, CardBody, CardHeader } from '@/components/ui/card'
 import { PageHeader } from '@/components/ui/page-header'
 import { LoadingBlock } from '@/components/ui/spinner'
+import { LeadTimeForm } from '@/features/planning/components/lead-time-form'
 import { useSettings } from '@/features/studio/api/studio'
 import { StudioProfileForm } from '@/features/studio/components/studio-profile-form'
 
@@ -53,6 +54,15 @@ export function Component() {
                   </dd>
                 </div>
               </dl>
+            </CardBody>
+          </Card>
+          <Card>
+            <CardHeader
+              title="Pour planning"
+              description="How much time the pour plan keeps to spare when it works out the last day to pour."
+            />
+            <CardBody>
+              <LeadTimeForm pourLeadTimeDays={settings.data.pourLeadTimeDays} />
             </CardBody>
           </Card>
         </div>

@@ -71,9 +71,12 @@ function lotRows(s: BatchSuggestion) {
 export function BatchForm({
   products,
   onRecorded,
+  plan,
 }: {
   products: PourableProduct[]
   onRecorded: (b: BatchDetail) => void
+  /** A planned pour to start from: its product and oil weight; recording the batch marks it poured. */
+  plan?: { id: number; productId: number; oilWeightG: number; description: string } | null
 }) {
   const record = useRecordBatch()
   const [formError, setFormError] = useState<string | null>(null)
@@ -84,9 +87,10 @@ export function BatchForm({
   const form = useForm<RecordBatchFormValues, unknown, RecordBatchInput>({
     resolver: zodResolver(RecordBatchSchema),
     defaultValues: {
-      productId: '',
+      productId: plan ? plan.productId : '',
       pourDate: localToday(),
-      oilWeightG: '',
+      oilWeightG: plan ? plan.oilWeightG : '',
+      plannedPourId: plan ? plan.id : null,
       barsCut: '',
       barsKeptBack: '',
       keptBackReason: 'End slices',
@@ -175,6 +179,14 @@ export function BatchForm({
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-6" aria-label="Record a batch">
       <FormError message={formError} />
+      {plan && String(productId) === String(plan.productId) ? (
+        <p
+          className="rounded-card bg-olive-50 px-4 py-3 text-sm text-olive-800 ring-1 ring-olive-200"
+          role="status"
+        >
+          {plan.description} Recording this batch marks the plan poured.
+        </p>
+      ) : null}
       <Card>
         <CardHeader title="What was poured" />
         <CardBody className="grid gap-4 sm:grid-cols-2">
@@ -184,6 +196,8 @@ export function BatchForm({
                 onChange: (e: { target: { value: string } }) => {
                   const p = products.find((x) => String(x.id) === e.target.value)
                   form.setValue('oilWeightG', p ? p.mouldOilWeightG : '')
+                  // Another product than the plan's is a batch of its own.
+                  if (plan && String(plan.productId) !== e.target.value) form.setValue('plannedPourId', null)
                   setBarsTouched(false)
                   setApplied(null)
                   appliedKey.current = ''
