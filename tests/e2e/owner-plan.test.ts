@@ -78,7 +78,7 @@ describe('the owner plans and pours', () => {
     for (const [path, heading] of [
       ['/studio/plan', 'Pour plan'],
       ['/studio/sales', 'Sales'],
-    ]) {
+    ] as const) {
       await page.goto(path)
       await page.getByRole('heading', { level: 1, name: heading }).waitFor()
       await page.waitForLoadState('networkidle')
