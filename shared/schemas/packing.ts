@@ -99,6 +99,8 @@ export type PackingQueueItem = {
   bars: number
   /** Every line has its bars allocated (a pre-order still waiting for curing stock has not). */
   readyToPack: boolean
+  /** A prepay account's invoice is not yet paid in full: the order may be packed, not shipped. */
+  awaitingPayment: boolean
   packer: PackerRef | null
   packingStartedAt: string | null
 }
@@ -180,6 +182,8 @@ export type PackingOrderDto = {
   shipTo: { name: string; contactName: string; contactPhone: string | null; lines: string[] }
   lines: PackingLine[]
   readyToPack: boolean
+  /** A prepay account's invoice is not yet paid in full: the order may be packed, not shipped. */
+  awaitingPayment: boolean
   packer: PackerRef | null
   packingStartedAt: string | null
   packedAt: string | null

@@ -3,6 +3,7 @@ import { useParams } from 'react-router-dom'
 import { canTransition, isCancellableBy } from '@shared/domain/orders/order-status'
 import { Button, LinkButton } from '@/components/ui/button'
 import { EmptyState } from '@/components/ui/empty-state'
+import { Notice } from '@/components/ui/notice'
 import { PageHeader } from '@/components/ui/page-header'
 import { LoadingBlock } from '@/components/ui/spinner'
 import { toast } from '@/components/ui/toast'
@@ -74,6 +75,22 @@ export function Component() {
           </>
         }
       />
+      {o.awaitingPayment && o.status !== 'shipped' && o.status !== 'cancelled' ? (
+        <Notice
+          title="Payment awaited"
+          className="mb-6"
+          action={
+            o.invoice ? (
+              <LinkButton to={paths.owner.invoice(o.invoice.id)} variant="secondary" size="sm">
+                Open invoice {o.invoice.number}
+              </LinkButton>
+            ) : null
+          }
+        >
+          {o.shopName} is on prepay terms and invoice {o.invoice?.number} is not yet paid in full. The order
+          can be packed; it cannot ship until the payment is recorded.
+        </Notice>
+      ) : null}
       <OrderDetail order={o} showLots />
       <CancelOrderDialog order={o} open={cancelling} onClose={() => setCancelling(false)} />
       {editing ? (

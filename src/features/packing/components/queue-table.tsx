@@ -62,6 +62,11 @@ export function QueueTable({ items, me, orderHref, label, selection, toolbar, em
               <span className="block text-xs font-normal text-ink-600">
                 {c.row.original.poNumber ? `PO ${c.row.original.poNumber}` : 'No PO'}
               </span>
+              {c.row.original.awaitingPayment ? (
+                <Badge tone="clay" className="mt-1">
+                  Payment awaited
+                </Badge>
+              ) : null}
             </span>
           ),
         }),
