@@ -130,7 +130,14 @@ export type PickProduct = {
   lots: PickLot[]
 }
 
-/** `GET /api/pick-list`: every bar to pull for the chosen orders, by product and by batch lot. */
+/** One lot to pull from on the walk: a product's batch lot where it sits, and the orders it goes to. */
+export type PickStop = PickLot & { productId: number; sku: string; name: string; casePack: number }
+
+/**
+ * `GET /api/pick-list`: every bar to pull for the chosen orders, by product and by batch lot
+ * (`products`, by SKU), and the same lots in the order to walk the shelves (`stops`: by location,
+ * then SKU, then lot age; lots without a location last).
+ */
 export type PickListDto = {
   orders: {
     orderId: number
@@ -140,6 +147,7 @@ export type PickListDto = {
     status: OrderStatus
   }[]
   products: PickProduct[]
+  stops: PickStop[]
   totalBars: number
   totalCases: number
 }

@@ -106,7 +106,15 @@ describe('the packer packs and ships; the buyer downloads the invoice', () => {
     await page.getByLabel(`Add ${order!.number} to the pick list`).check()
     const pickList = page.getByRole('heading', { level: 2, name: 'Pick list' })
     await pickList.waitFor()
-    await expect.poll(() => page.getByRole('heading', { level: 3, name: /UNS-XL/ }).isVisible()).toBe(true)
+    // In walking order, shelf by shelf: each shelf a heading, each lot with its product and lot code.
+    await expect
+      .poll(() =>
+        page
+          .getByRole('list', { name: /^Lots on / })
+          .getByText(/^\d{6}-UNS-XL-\d{2}$/)
+          .isVisible(),
+      )
+      .toBe(true)
     await screenshot(page, 'packing-pick-list')
     // Print opens the PDF in a tab of its own; the download link saves it.
     const [tab] = await Promise.all([

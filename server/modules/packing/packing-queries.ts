@@ -1,6 +1,7 @@
 import { QueryTypes } from 'sequelize'
 import type { Transaction } from 'sequelize'
 import type { OrderStatus } from '@shared/domain/orders/order-status'
+import { walkOrder } from '@shared/domain/packing/walk-order'
 import type {
   PackingLine,
   PackingOrderDto,
@@ -232,7 +233,7 @@ type PickRow = {
 /**
  * The bars to pull for these orders: per product (by SKU), then per batch lot in the order the
  * bars were allocated (oldest ready batch first), each lot with its shelf location and the orders
- * its bars go to.
+ * its bars go to; and the same lots as stops in walking order (`walkOrder`).
  */
 export async function pickList(
   orders: {
@@ -289,9 +290,21 @@ export async function pickList(
     else lot.orders.push({ orderId: r.order_id, number: numberOf.get(r.order_id) ?? '', bars: r.bars })
   }
   const list = [...products.values()].map((p) => ({ ...p, cases: Math.floor(p.bars / p.casePack) }))
+  const stops = walkOrder(
+    list.flatMap((p) =>
+      p.lots.map((lot) => ({
+        ...lot,
+        productId: p.productId,
+        sku: p.sku,
+        name: p.name,
+        casePack: p.casePack,
+      })),
+    ),
+  )
   return {
     orders,
     products: list,
+    stops,
     totalBars: list.reduce((n, p) => n + p.bars, 0),
     totalCases: list.reduce((n, p) => n + p.cases, 0),
   }
