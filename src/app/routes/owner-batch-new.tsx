@@ -8,9 +8,11 @@ import { toast } from '@/components/ui/toast'
 import { paths } from '@/config/paths'
 import { usePourableProducts } from '@/features/batches/api/batches'
 import { BatchForm } from '@/features/batches/components/batch-form'
+import { useStudioCurrency } from '@/features/studio/api/studio'
 
 export function Component() {
   const products = usePourableProducts()
+  const currency = useStudioCurrency()
   const navigate = useNavigate()
   return (
     <>
@@ -30,6 +32,7 @@ export function Component() {
       ) : (
         <BatchForm
           products={products.data ?? []}
+          currency={currency}
           onRecorded={(b) => {
             toast.success(
               `Batch ${b.lotCode} recorded: ${b.sellableBars} bars, ready on ${formatDate(b.readyDate)}.`,

@@ -71,9 +71,12 @@ function lotRows(s: BatchSuggestion) {
 export function BatchForm({
   products,
   onRecorded,
+  currency,
 }: {
   products: PourableProduct[]
   onRecorded: (b: BatchDetail) => void
+  /** The studio's currency (settings) for the estimated cost. */
+  currency: string
 }) {
   const record = useRecordBatch()
   const [formError, setFormError] = useState<string | null>(null)
@@ -391,7 +394,11 @@ export function BatchForm({
               <div>
                 <dt className="text-ink-700">Cost per bar (estimate)</dt>
                 <dd className="text-base font-medium text-ink-900">
-                  {s.estimatedCostPerBarCents == null ? '—' : <Money cents={s.estimatedCostPerBarCents} />}
+                  {s.estimatedCostPerBarCents == null ? (
+                    '—'
+                  ) : (
+                    <Money cents={s.estimatedCostPerBarCents} currency={currency} />
+                  )}
                 </dd>
                 <dd className="text-ink-600">frozen from the lots actually used</dd>
               </div>
