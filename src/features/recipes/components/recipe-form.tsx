@@ -348,22 +348,18 @@ export function RecipeForm({
           ) : null}
           {fragrances.fields.map((row, i) => (
             <div key={row.id} className="flex flex-col gap-1">
-              <Row onRemove={() => fragrances.remove(i)} removeLabel={`Remove fragrance ${i + 1}`}>
-                <IngredientSelect
-                  label={`Fragrance ${i + 1}`}
-                  name={`fragrances.${i}.ingredientId`}
-                  register={register}
-                  options={ofKinds('fragrance')}
-                  placeholder="Choose a fragrance…"
-                  error={errors.fragrances?.[i]?.ingredientId?.message}
-                />
-                <NumberField
-                  label={`Fragrance ${i + 1} (% of oils)`}
-                  name={`fragrances.${i}.pct`}
-                  register={register}
-                  error={errors.fragrances?.[i]?.pct?.message}
-                />
-              </Row>
+              <ItemRow
+                list="fragrances"
+                amount="pct"
+                noun="Fragrance"
+                index={i}
+                amountLabel="% of oils"
+                register={register}
+                options={ofKinds('fragrance')}
+                placeholder="Choose a fragrance…"
+                errors={[errors.fragrances?.[i]?.ingredientId?.message, errors.fragrances?.[i]?.pct?.message]}
+                onRemove={() => fragrances.remove(i)}
+              />
               <FragranceCheck control={control} index={i} options={options} />
             </div>
           ))}
@@ -388,22 +384,19 @@ export function RecipeForm({
         <CardHeader title="Additives and colourants" description="Grams per kilogram of oils." />
         <CardBody className="flex flex-col gap-3">
           {additives.fields.map((row, i) => (
-            <Row key={row.id} onRemove={() => additives.remove(i)} removeLabel={`Remove additive ${i + 1}`}>
-              <IngredientSelect
-                label={`Additive ${i + 1}`}
-                name={`additives.${i}.ingredientId`}
-                register={register}
-                options={ofKinds('additive', 'colourant')}
-                placeholder="Choose an additive or colourant…"
-                error={errors.additives?.[i]?.ingredientId?.message}
-              />
-              <NumberField
-                label={`Additive ${i + 1} (g per kg of oils)`}
-                name={`additives.${i}.gPerKg`}
-                register={register}
-                error={errors.additives?.[i]?.gPerKg?.message}
-              />
-            </Row>
+            <ItemRow
+              key={row.id}
+              list="additives"
+              amount="gPerKg"
+              noun="Additive"
+              index={i}
+              amountLabel="g per kg of oils"
+              register={register}
+              options={ofKinds('additive', 'colourant')}
+              placeholder="Choose an additive or colourant…"
+              errors={[errors.additives?.[i]?.ingredientId?.message, errors.additives?.[i]?.gPerKg?.message]}
+              onRemove={() => additives.remove(i)}
+            />
           ))}
           <div>
             <Button
@@ -426,22 +419,22 @@ export function RecipeForm({
         <CardHeader title="Packaging" description="Items per bar, such as a box and a label." />
         <CardBody className="flex flex-col gap-3">
           {packaging.fields.map((row, i) => (
-            <Row key={row.id} onRemove={() => packaging.remove(i)} removeLabel={`Remove packaging ${i + 1}`}>
-              <IngredientSelect
-                label={`Packaging ${i + 1}`}
-                name={`packaging.${i}.ingredientId`}
-                register={register}
-                options={ofKinds('packaging')}
-                placeholder="Choose a packaging item…"
-                error={errors.packaging?.[i]?.ingredientId?.message}
-              />
-              <NumberField
-                label={`Packaging ${i + 1} (per bar)`}
-                name={`packaging.${i}.qtyPerBar`}
-                register={register}
-                error={errors.packaging?.[i]?.qtyPerBar?.message}
-              />
-            </Row>
+            <ItemRow
+              key={row.id}
+              list="packaging"
+              amount="qtyPerBar"
+              noun="Packaging"
+              index={i}
+              amountLabel="per bar"
+              register={register}
+              options={ofKinds('packaging')}
+              placeholder="Choose a packaging item…"
+              errors={[
+                errors.packaging?.[i]?.ingredientId?.message,
+                errors.packaging?.[i]?.qtyPerBar?.message,
+              ]}
+              onRemove={() => packaging.remove(i)}
+            />
           ))}
           <div>
             <Button
@@ -539,6 +532,54 @@ function Row({
         ) : null}
       </div>
     </div>
+  )
+}
+
+/**
+ * One fragrance, additive or packaging line: the ingredient and its amount, with a remove button.
+ * Labels number the rows ("Fragrance 2", "Fragrance 2 (% of oils)", "Remove fragrance 2").
+ */
+function ItemRow({
+  list,
+  amount,
+  noun,
+  index,
+  amountLabel,
+  register,
+  options,
+  placeholder,
+  errors: [ingredientError, amountError],
+  onRemove,
+}: {
+  list: 'fragrances' | 'additives' | 'packaging'
+  amount: 'pct' | 'gPerKg' | 'qtyPerBar'
+  noun: string
+  index: number
+  amountLabel: string
+  register: UseFormRegister<Values>
+  options: RecipeIngredientOption[]
+  placeholder: string
+  errors: [string | undefined, string | undefined]
+  onRemove: () => void
+}) {
+  const n = index + 1
+  return (
+    <Row onRemove={onRemove} removeLabel={`Remove ${noun.toLowerCase()} ${n}`}>
+      <IngredientSelect
+        label={`${noun} ${n}`}
+        name={`${list}.${index}.ingredientId` as FieldPath<Values>}
+        register={register}
+        options={options}
+        placeholder={placeholder}
+        error={ingredientError}
+      />
+      <NumberField
+        label={`${noun} ${n} (${amountLabel})`}
+        name={`${list}.${index}.${amount}` as FieldPath<Values>}
+        register={register}
+        error={amountError}
+      />
+    </Row>
   )
 }
 
