@@ -9,10 +9,10 @@ import path from 'node:path'
 import { randomUUID } from 'node:crypto'
 import { PDFParse } from 'pdf-parse'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
+import type { Browser } from 'playwright-core'
 import { waitForMail } from '@tests/factories/mail'
 import { DEMO } from '@tests/factories/api-client'
-import { axeViolations, launch, newPage, screenshot, signIn } from './browser'
+import { axeViolations, call, launch, newPage, screenshot, signIn } from './browser'
 
 let browser: Browser
 beforeAll(async () => {
@@ -39,21 +39,6 @@ function keep(name: string, file: string) {
   const dir = path.resolve('test-results', 'pdf')
   fs.mkdirSync(dir, { recursive: true })
   fs.copyFileSync(file, path.join(dir, name))
-}
-
-/** JSON calls with the page's own session (and its CSRF token for writes). */
-async function call(
-  page: Page,
-  method: 'GET' | 'POST',
-  url: string,
-  data?: unknown,
-  headers: Record<string, string> = {},
-) {
-  const token = (await (await page.request.get('/api/auth/csrf')).json()).csrfToken as string
-  const r = await page.request.fetch(url, { method, data, headers: { 'X-CSRF-Token': token, ...headers } })
-  const body = await r.json().catch(() => null)
-  if (!r.ok()) throw new Error(`${method} ${url} answered ${r.status()}: ${JSON.stringify(body)}`)
-  return body
 }
 
 describe('the packer packs and ships; the buyer downloads the invoice', () => {

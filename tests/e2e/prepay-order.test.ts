@@ -7,8 +7,8 @@
  */
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { axeViolations, launch, newPage, screenshot, signIn } from './browser'
+import type { Browser } from 'playwright-core'
+import { axeViolations, call, launch, newPage, screenshot, signIn } from './browser'
 
 let browser: Browser
 beforeAll(async () => {
@@ -17,21 +17,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close()
 })
-
-/** JSON calls with the page's own session (and its CSRF token for writes). */
-async function call(
-  page: Page,
-  method: 'GET' | 'POST',
-  url: string,
-  data?: unknown,
-  headers: Record<string, string> = {},
-) {
-  const token = (await (await page.request.get('/api/auth/csrf')).json()).csrfToken as string
-  const r = await page.request.fetch(url, { method, data, headers: { 'X-CSRF-Token': token, ...headers } })
-  const body = await r.json().catch(() => null)
-  if (!r.ok()) throw new Error(`${method} ${url} answered ${r.status()}: ${JSON.stringify(body)}`)
-  return body
-}
 
 const PO = `HL-E2E-${randomUUID().slice(0, 6).toUpperCase()}`
 let order: { id: number; number: string; invoiceId: number; invoiceNumber: string; totalCents: number }
