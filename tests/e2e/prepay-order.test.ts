@@ -108,6 +108,17 @@ describe('a prepay order waits for its payment before it ships', () => {
     await page.waitForLoadState('networkidle')
     expect(await axeViolations(page)).toEqual([])
     await screenshot(page, 'prepay-packer-order')
+
+    // Back on the queue it waits among the packed orders, to open but not to ship.
+    await page.goto('/packing')
+    const waiting = page
+      .getByRole('table', { name: 'Packed orders waiting for the carrier' })
+      .getByRole('row')
+      .filter({ hasText: order.number })
+    await waiting.waitFor()
+    await expect.poll(() => waiting.getByText('Payment awaited').isVisible()).toBe(true)
+    await waiting.getByRole('link', { name: `View ${order.number}` }).waitFor()
+    expect(await waiting.getByRole('link', { name: `Ship ${order.number}` }).count()).toBe(0)
     await context.close()
   })
 

@@ -119,14 +119,16 @@ export function QueueTable({ items, me, orderHref, label, selection, toolbar, em
           cell: (c) => {
             const o = c.row.original
             if (o.status === 'packed') {
+              // A prepay order waiting for its payment cannot ship yet: the link only opens it.
+              const verb = o.awaitingPayment ? 'View' : 'Ship'
               return (
                 <LinkButton
                   to={orderHref(o.orderId)}
                   size="sm"
                   variant="secondary"
-                  aria-label={`Ship ${o.number}`}
+                  aria-label={`${verb} ${o.number}`}
                 >
-                  Ship
+                  {verb}
                 </LinkButton>
               )
             }
