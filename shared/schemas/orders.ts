@@ -110,6 +110,13 @@ export type OrderDto = {
   taxCents?: number
   totalCents?: number
   taxExempt?: boolean
+  /**
+   * The order's invoice (the live one, else the latest void one); null before it is raised. Not
+   * given to packers.
+   */
+  invoice?: { id: number; number: string; void: boolean } | null
+  /** A prepay account's invoice is not yet paid in full: the order cannot ship until it is. */
+  awaitingPayment: boolean
   /** The studio's currency (ISO 4217), in which every amount is given. */
   currency: string
   weightG: number

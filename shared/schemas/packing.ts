@@ -99,6 +99,8 @@ export type PackingQueueItem = {
   bars: number
   /** Every line has its bars allocated (a pre-order still waiting for curing stock has not). */
   readyToPack: boolean
+  /** A prepay account's invoice is not yet paid in full: the order may be packed, not shipped. */
+  awaitingPayment: boolean
   packer: PackerRef | null
   packingStartedAt: string | null
 }
@@ -128,7 +130,14 @@ export type PickProduct = {
   lots: PickLot[]
 }
 
-/** `GET /api/pick-list`: every bar to pull for the chosen orders, by product and by batch lot. */
+/** One lot to pull from on the walk: a product's batch lot where it sits, and the orders it goes to. */
+export type PickStop = PickLot & { productId: number; sku: string; name: string; casePack: number }
+
+/**
+ * `GET /api/pick-list`: every bar to pull for the chosen orders, by product and by batch lot
+ * (`products`, by SKU), and the same lots in the order to walk the shelves (`stops`: by location,
+ * then SKU, then lot age; lots without a location last).
+ */
 export type PickListDto = {
   orders: {
     orderId: number
@@ -138,6 +147,7 @@ export type PickListDto = {
     status: OrderStatus
   }[]
   products: PickProduct[]
+  stops: PickStop[]
   totalBars: number
   totalCases: number
 }
@@ -180,6 +190,8 @@ export type PackingOrderDto = {
   shipTo: { name: string; contactName: string; contactPhone: string | null; lines: string[] }
   lines: PackingLine[]
   readyToPack: boolean
+  /** A prepay account's invoice is not yet paid in full: the order may be packed, not shipped. */
+  awaitingPayment: boolean
   packer: PackerRef | null
   packingStartedAt: string | null
   packedAt: string | null

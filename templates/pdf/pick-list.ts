@@ -6,8 +6,9 @@ import { PALETTE, TABLE_LAYOUT, pageFooter, studioHeader } from '@server/lib/pdf
 import { tickBox } from './packing-slip'
 
 /**
- * The shelf walk for one or more orders: per product, the batch lots to pull from (oldest first,
- * as allocated), where each lot sits and how many bars go to which order. No prices.
+ * The shelf walk for one or more orders: the batch lots to pull from in walking order (by
+ * location, then SKU, then lot age), how many bars go to which order, and the bars per product.
+ * No prices.
  */
 export function pickListDocument(opts: {
   studio: Settings['studio']
@@ -17,44 +18,61 @@ export function pickListDocument(opts: {
   const { list, studio } = opts
   // A fresh header row per table: pdfmake writes layout state into the objects it draws.
   const header = () =>
-    ['Pulled', 'Lot code', 'Location', 'Ready since', 'Bars', 'For orders'].map((t, i) => ({
+    ['Pulled', 'Location', 'Product', 'Lot code', 'Ready since', 'Bars', 'For orders'].map((t, i) => ({
       text: t,
       style: 'th',
-      alignment: i === 4 ? ('right' as const) : i === 0 ? ('center' as const) : ('left' as const),
+      alignment: i === 5 ? ('right' as const) : i === 0 ? ('center' as const) : ('left' as const),
     }))
-  const products: Content[] = list.products.flatMap((p) => [
-    {
-      columns: [
-        { text: [{ text: `${p.sku}  `, bold: true }, p.name], style: 'h2', width: '*' },
-        {
-          text: `${p.bars} bars · ${p.cases} ${p.cases === 1 ? 'case' : 'cases'} of ${p.casePack}`,
-          alignment: 'right' as const,
-          bold: true,
-          margin: [0, 12, 0, 6] as [number, number, number, number],
-          width: 'auto',
-        },
-      ],
-    },
-    {
-      table: {
-        headerRows: 1,
-        widths: [40, 118, 96, 70, 36, '*'],
-        dontBreakRows: true,
-        body: [
-          header(),
-          ...p.lots.map((lot) => [
-            tickBox(12),
-            { text: lot.lotCode, bold: true, noWrap: true },
-            { text: lot.location ?? 'No location set', color: lot.location ? PALETTE.ink : PALETTE.honey },
-            formatDate(lot.readyDate),
-            { text: String(lot.bars), alignment: 'right' as const, bold: true },
-            { text: lot.orders.map((o) => `${o.number} × ${o.bars}`).join(', ') },
-          ]),
-        ],
-      },
-      layout: TABLE_LAYOUT,
-    },
-  ])
+  const walk: Content[] =
+    list.stops.length === 0
+      ? []
+      : [
+          { text: 'The walk, shelf by shelf', style: 'h2' },
+          {
+            table: {
+              headerRows: 1,
+              widths: [34, 78, '*', 100, 64, 30, 80],
+              dontBreakRows: true,
+              body: [
+                header(),
+                ...list.stops.map((stop) => [
+                  tickBox(12),
+                  {
+                    text: stop.location?.trim() ? stop.location : 'No location set',
+                    color: stop.location?.trim() ? PALETTE.ink : PALETTE.honey,
+                  },
+                  { text: [{ text: `${stop.sku}  `, bold: true }, stop.name] },
+                  { text: stop.lotCode, bold: true, noWrap: true },
+                  { text: formatDate(stop.readyDate), noWrap: true },
+                  { text: String(stop.bars), alignment: 'right' as const, bold: true },
+                  { text: stop.orders.map((o) => `${o.number} × ${o.bars}`).join(', ') },
+                ]),
+              ],
+            },
+            layout: TABLE_LAYOUT,
+          },
+          { text: 'Per product', style: 'h2' },
+          {
+            table: {
+              headerRows: 1,
+              widths: [70, '*', 50, 60],
+              body: [
+                ['SKU', 'Product', 'Bars', 'Cases'].map((t, i) => ({
+                  text: t,
+                  style: 'th',
+                  alignment: i >= 2 ? ('right' as const) : ('left' as const),
+                })),
+                ...list.products.map((p) => [
+                  { text: p.sku, bold: true },
+                  p.name,
+                  { text: String(p.bars), alignment: 'right' as const },
+                  { text: `${p.cases} of ${p.casePack}`, alignment: 'right' as const },
+                ]),
+              ],
+            },
+            layout: TABLE_LAYOUT,
+          },
+        ]
 
   return {
     info: { title: 'Pick list', author: studio.name, creator: 'Lathercase' },
@@ -79,8 +97,8 @@ export function pickListDocument(opts: {
         },
         layout: TABLE_LAYOUT,
       },
-      ...(products.length > 0
-        ? products
+      ...(walk.length > 0
+        ? walk
         : [
             {
               text: 'No bars are set aside for these orders yet.',
@@ -88,7 +106,7 @@ export function pickListDocument(opts: {
             },
           ]),
       {
-        text: 'Pull each lot in the order listed (oldest batch first) so the lot codes on the packing slips match the bars in the cartons.',
+        text: 'Walk the shelves in the order listed (by location, then SKU, the older lot first; lots without a location last) and pull each lot named, so the lot codes on the packing slips match the bars in the cartons.',
         style: 'small',
         margin: [0, 14, 0, 0],
       },

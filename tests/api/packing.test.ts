@@ -233,6 +233,62 @@ describe('GET /api/pick-list and /api/pick-list.pdf', () => {
     expect(text).not.toMatch(/\$\s?\d/)
   })
 
+  it('walks the shelves: by location (numbers by value), then SKU, then the older lot; no location last', async () => {
+    const far = await makeSellable(owner, { bars: 60, location: 'Rack 10, shelf 1' })
+    const near = await makeSellable(owner, { bars: 60, location: 'Rack 2, shelf 1' })
+    const twoLots = await makeSellable(owner, { bars: 12, location: 'Rack 2, shelf 1' })
+    const younger = await pourMore(owner, twoLots.productId, 30, 35, 'Rack 2, shelf 1')
+    const nowhere = await makeSellable(owner, { bars: 60, location: 'Rack 1' })
+    await sequelize.query('UPDATE batches SET location = NULL WHERE id = $1', { bind: [nowhere.batchId] })
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [
+        { productId: nowhere.productId, cases: 1 },
+        { productId: far.productId, cases: 1 },
+        { productId: twoLots.productId, cases: 3 },
+        { productId: near.productId, cases: 1 },
+      ],
+      status: 'confirmed',
+    })
+    const r = expectStatus(await packer.get(`/api/pick-list?orders=${o.orderId}`), 200)
+    const stops = r.body.stops as { location: string | null; sku: string; lotCode: string; bars: number }[]
+    expect(stops.map((x) => x.location)).toEqual([
+      'Rack 2, shelf 1',
+      'Rack 2, shelf 1',
+      'Rack 2, shelf 1',
+      'Rack 10, shelf 1',
+      null,
+    ])
+    // On one shelf by SKU; the product with two lots there lists the older one (12 bars) first.
+    const shelf = stops.slice(0, 3)
+    const skus = shelf.map((x) => x.sku)
+    expect(skus).toEqual([...skus].sort((a, b) => a.localeCompare(b, 'en', { numeric: true })))
+    const both = shelf.filter((x) => x.sku === twoLots.sku)
+    expect(both.map((x) => [x.lotCode, x.bars])).toEqual([
+      [twoLots.lotCode, 12],
+      [younger.lotCode, 6],
+    ])
+    expect(stops.slice(3).map((x) => x.lotCode)).toEqual([far.lotCode, nowhere.lotCode])
+    // Every lot of the per-product view stands once on the walk.
+    expect(r.body.stops).toHaveLength(
+      r.body.products.reduce((n: number, p: { lots: unknown[] }) => n + p.lots.length, 0),
+    )
+
+    // The PDF lists the lots in the same order.
+    const pdf = await packer
+      .get(`/api/pick-list.pdf?orders=${o.orderId}`)
+      .buffer(true)
+      .parse(binary)
+      .expect(200)
+    keepPdf('pick-list-walk.pdf', pdf.body as Buffer)
+    const text = await pdfText(pdf.body as Buffer)
+    const at = stops.map((x) => text.indexOf(x.lotCode))
+    expect(at.every((i) => i >= 0)).toBe(true)
+    expect(at).toEqual([...at].sort((a, b) => a - b))
+    expect(text).toContain('No location set')
+    expect(text.indexOf('Rack 2, shelf 1')).toBeLessThan(text.indexOf('Rack 10, shelf 1'))
+  })
+
   it('refuses malformed, unknown and unpickable orders', async () => {
     const shipped = await makeOrder({
       shop: 'A',

@@ -1,6 +1,6 @@
 import { randomBytes } from 'node:crypto'
 import { QueryTypes } from 'sequelize'
-import { beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it, vi } from 'vitest'
 import { createApp } from '@server/app'
 import { sequelize } from '@server/db/sequelize'
 import type { ApiClient } from '@tests/factories/api-client'
@@ -575,6 +575,53 @@ describe('CSV import', () => {
     ])
     const preview = (await owner.post('/api/purchases/import/preview', { csv })).body as ImportPreview
     expect(preview.rows.map((row) => row.errors.map((e) => e.field))).toEqual([[], ['lot_code'], ['line']])
+  })
+
+  it('checks a whole file against recorded purchases in one query, naming each duplicate', async () => {
+    const { oil } = await names()
+    const recorded: number[] = []
+    for (const code of ['REC-1', 'REC-2']) {
+      const r = await owner.post(
+        '/api/purchases',
+        purchaseBody(oil.id, { supplierLotCode: code, receivedOn: '2026-10-05' }),
+      )
+      expect(r.status).toBe(201)
+      recorded.push(r.body.purchase.id)
+    }
+    const rows = Array.from({ length: 40 }, (_, i) => [
+      oil.name,
+      // Case aside, the same delivery.
+      i === 7 ? 'greenfield oil traders' : 'Greenfield Oil Traders',
+      i === 7 ? 'rec-1' : i === 21 ? 'REC-2' : `NEW-${i}`,
+      '2026-10-05',
+      '3',
+      'kg',
+      '30.00',
+      '',
+    ])
+    // Recorded and again within the file: the recorded purchase is named.
+    rows.push([oil.name, 'Greenfield Oil Traders', 'REC-2', '2026-10-05', '3', 'kg', '30.00', ''])
+    const csv = toCsv([HEADER, ...rows])
+    const queries: string[] = []
+    const query = sequelize.query.bind(sequelize)
+    const spy = vi.spyOn(sequelize, 'query').mockImplementation(((sql: unknown, ...rest: unknown[]) => {
+      queries.push(String(sql))
+      return (query as (...a: unknown[]) => unknown)(sql, ...rest)
+    }) as typeof sequelize.query)
+    let preview: ImportPreview
+    try {
+      preview = (await owner.post('/api/purchases/import/preview', { csv })).body as ImportPreview
+    } finally {
+      spy.mockRestore()
+    }
+    expect(queries.filter((q) => q.includes('ingredient_lots'))).toHaveLength(1)
+    const flagged = preview.rows.filter((r) => r.errors.length > 0)
+    expect(flagged.map((r) => [r.line, r.errors])).toEqual([
+      [9, [{ field: 'lot_code', message: expect.stringContaining(`purchase #${recorded[0]}:`) }]],
+      [23, [{ field: 'lot_code', message: expect.stringContaining(`purchase #${recorded[1]}:`) }]],
+      [42, [{ field: 'lot_code', message: expect.stringContaining(`purchase #${recorded[1]}:`) }]],
+    ])
+    expect(preview).toMatchObject({ validCount: 38, errorCount: 3 })
   })
 
   it('confirms a good file in one go and the rows appear in the list', async () => {

@@ -226,9 +226,95 @@ describe('POST /api/orders/:id/ship', () => {
       }),
       200,
     )
+    // Prepay: the invoice is paid before the order ships.
+    expectStatus(
+      await owner.post(`/api/invoices/${prepay!.id}/payments`, {
+        method: 'card',
+        amountCents: prepay!.total_cents,
+        receivedOn: today,
+        reference: 'Card ending 0042',
+      }),
+      201,
+    )
     const r = expectStatus(await ship(packer, o.orderId), 200)
     expect(r.body.invoice).toEqual({ id: prepay!.id, number: prepay!.number, raisedNow: false })
     expect(await invoiceOf(o.orderId)).toHaveLength(1)
+  })
+
+  it('refuses to ship a prepay order whose invoice is unpaid (409 awaiting_payment) and writes nothing', async () => {
+    const o = await makeOrder({
+      shop: 'B',
+      lines: [{ productId: soap.productId, cases: 1 }],
+      status: 'packed',
+    })
+    const [inv] = await invoiceOf(o.orderId)
+    expect(inv).toMatchObject({ terms: 'prepay' })
+
+    // The bench shows it: on the queue among the packed orders, and on the packer's order page.
+    const queue = expectStatus(await packer.get('/api/packing/queue'), 200).body
+    const row = queue.awaitingShipment.find((i: { orderId: number }) => i.orderId === o.orderId)
+    expect(row).toMatchObject({ status: 'packed', awaitingPayment: true })
+    expect(expectStatus(await packer.get(`/api/packing/orders/${o.orderId}`), 200).body.order).toMatchObject({
+      awaitingPayment: true,
+    })
+    // The owner's order page says so too, and names the invoice.
+    expect(expectStatus(await owner.get(`/api/orders/${o.orderId}`), 200).body.order).toMatchObject({
+      awaitingPayment: true,
+      invoice: { id: inv!.id, number: inv!.number, void: false },
+    })
+
+    const before = await snapshot([soap.batchId])
+    for (const who of [packer, owner]) {
+      const r = expectStatus(await ship(who, o.orderId), 409)
+      expect(r.body.error.code).toBe('awaiting_payment')
+      expect(r.body.error.message).toContain(inv!.number)
+      expect(r.body.error.details).toEqual([
+        expect.objectContaining({ field: 'invoice', invoiceId: inv!.id, invoiceNumber: inv!.number }),
+      ])
+      // A packer never sees an amount, not even in a refusal.
+      expect(JSON.stringify(r.body)).not.toMatch(/\$|cents/i)
+    }
+    expect(await orderStatus(o.orderId)).toBe('packed')
+    expect(await snapshot([soap.batchId])).toEqual(before)
+
+    // Part paid is still awaiting payment.
+    const pay = (amountCents: number) =>
+      owner.post(`/api/invoices/${inv!.id}/payments`, {
+        method: 'bank_transfer',
+        amountCents,
+        receivedOn: today,
+        reference: 'Wire HL',
+      })
+    expectStatus(await pay(100), 201)
+    expect(expectStatus(await ship(packer, o.orderId), 409).body.error.code).toBe('awaiting_payment')
+    expect(await orderStatus(o.orderId)).toBe('packed')
+
+    // Paid in full: the bench no longer waits, and the order ships.
+    expectStatus(await pay(inv!.total_cents - 100), 201)
+    expect(
+      expectStatus(await packer.get(`/api/packing/orders/${o.orderId}`), 200).body.order.awaitingPayment,
+    ).toBe(false)
+    expect(expectStatus(await owner.get(`/api/orders/${o.orderId}`), 200).body.order.awaitingPayment).toBe(
+      false,
+    )
+    const r = expectStatus(await ship(packer, o.orderId), 200)
+    expect(r.body.invoice).toEqual({ id: inv!.id, number: inv!.number, raisedNow: false })
+  })
+
+  it('never marks an order on net terms as awaiting payment', async () => {
+    const o = await makeOrder({
+      shop: 'A',
+      lines: [{ productId: soap.productId, cases: 1 }],
+      status: 'packed',
+    })
+    const queue = expectStatus(await packer.get('/api/packing/queue'), 200).body
+    expect(
+      queue.awaitingShipment.find((i: { orderId: number }) => i.orderId === o.orderId).awaitingPayment,
+    ).toBe(false)
+    expect(expectStatus(await owner.get(`/api/orders/${o.orderId}`), 200).body.order).toMatchObject({
+      awaitingPayment: false,
+      invoice: null,
+    })
   })
 
   it('answers null from the confirmation hook for an account on net terms (invoiced when it ships)', async () => {

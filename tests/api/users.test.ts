@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { createApp } from '@server/app'
 import { sequelize } from '@server/db/sequelize'
+import { updateSettings } from '@server/modules/settings/settings.service'
 import { ApiClient, DEMO, clientAs } from '@tests/factories/api-client'
 import { linkIn, waitForMail } from '@tests/factories/mail'
 
@@ -165,6 +166,15 @@ describe('settings and the studio profile', () => {
     expect(r.status).toBe(200)
     const buyer = await clientAs(app, 'buyerA')
     expect((await buyer.get('/api/studio')).body.studio.email).toBe('orders@brindlewick.test')
+    // Every role reads the studio's currency there (list tables give their amounts in it).
+    expect((await buyer.get('/api/studio')).body.currency).toBe('USD')
+    await updateSettings({ currency: 'CAD' })
+    try {
+      expect((await buyer.get('/api/studio')).body.currency).toBe('CAD')
+      expect((await (await clientAs(app, 'packer')).get('/api/studio')).body.currency).toBe('CAD')
+    } finally {
+      await updateSettings({ currency: 'USD' })
+    }
     expect((await buyer.get('/api/settings')).status).toBe(403)
     expect((await buyer.put('/api/settings/studio', {})).status).toBe(403)
     const bad = await owner.put('/api/settings/studio', {

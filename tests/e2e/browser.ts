@@ -87,3 +87,18 @@ export async function axeViolations(page: Page) {
           .join(', ')}`,
     )
 }
+
+/** JSON calls with the page's own session (and its CSRF token for writes). */
+export async function call(
+  page: Page,
+  method: 'GET' | 'POST',
+  url: string,
+  data?: unknown,
+  headers: Record<string, string> = {},
+) {
+  const token = (await (await page.request.get('/api/auth/csrf')).json()).csrfToken as string
+  const r = await page.request.fetch(url, { method, data, headers: { 'X-CSRF-Token': token, ...headers } })
+  const body = await r.json().catch(() => null)
+  if (!r.ok()) throw new Error(`${method} ${url} answered ${r.status()}: ${JSON.stringify(body)}`)
+  return body
+}

@@ -9,10 +9,10 @@ import path from 'node:path'
 import { randomUUID } from 'node:crypto'
 import { PDFParse } from 'pdf-parse'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
+import type { Browser } from 'playwright-core'
 import { waitForMail } from '@tests/factories/mail'
 import { DEMO } from '@tests/factories/api-client'
-import { axeViolations, launch, newPage, screenshot, signIn } from './browser'
+import { axeViolations, call, launch, newPage, screenshot, signIn } from './browser'
 
 let browser: Browser
 beforeAll(async () => {
@@ -39,21 +39,6 @@ function keep(name: string, file: string) {
   const dir = path.resolve('test-results', 'pdf')
   fs.mkdirSync(dir, { recursive: true })
   fs.copyFileSync(file, path.join(dir, name))
-}
-
-/** JSON calls with the page's own session (and its CSRF token for writes). */
-async function call(
-  page: Page,
-  method: 'GET' | 'POST',
-  url: string,
-  data?: unknown,
-  headers: Record<string, string> = {},
-) {
-  const token = (await (await page.request.get('/api/auth/csrf')).json()).csrfToken as string
-  const r = await page.request.fetch(url, { method, data, headers: { 'X-CSRF-Token': token, ...headers } })
-  const body = await r.json().catch(() => null)
-  if (!r.ok()) throw new Error(`${method} ${url} answered ${r.status()}: ${JSON.stringify(body)}`)
-  return body
 }
 
 describe('the packer packs and ships; the buyer downloads the invoice', () => {
@@ -106,7 +91,15 @@ describe('the packer packs and ships; the buyer downloads the invoice', () => {
     await page.getByLabel(`Add ${order!.number} to the pick list`).check()
     const pickList = page.getByRole('heading', { level: 2, name: 'Pick list' })
     await pickList.waitFor()
-    await expect.poll(() => page.getByRole('heading', { level: 3, name: /UNS-XL/ }).isVisible()).toBe(true)
+    // In walking order, shelf by shelf: each shelf a heading, each lot with its product and lot code.
+    await expect
+      .poll(() =>
+        page
+          .getByRole('list', { name: /^Lots on / })
+          .getByText(/^\d{6}-UNS-XL-\d{2}$/)
+          .isVisible(),
+      )
+      .toBe(true)
     await screenshot(page, 'packing-pick-list')
     // Print opens the PDF in a tab of its own; the download link saves it.
     const [tab] = await Promise.all([

@@ -45,12 +45,15 @@ const NAME_TAKEN = 'Another active ingredient already has this name.'
 
 /**
  * Current unit cost per ingredient by COST_RULE: the lots on hand, each at its own unit cost
- * (freight included), weighted by what is left. Null where nothing is on hand.
+ * (freight included), weighted by what is left. Null where nothing is on hand. The one reader of
+ * this rule: the ingredient screens, recipe costs and pricing all come here. `null` asks for every
+ * ingredient with lots on hand.
  */
 export async function currentUnitCosts(
   ingredientIds: readonly number[] | null,
   transaction?: Transaction,
 ): Promise<Map<number, number | null>> {
+  if (ingredientIds !== null && ingredientIds.length === 0) return new Map()
   const lots = await sequelize.query<{
     ingredient_id: number
     quantity: string

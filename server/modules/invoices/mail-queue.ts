@@ -45,3 +45,31 @@ export function queueMail(label: string, work: () => Promise<unknown>): void {
 export async function mailQueueIdle(): Promise<void> {
   while (pending > 0) await tail
 }
+
+// Mail sent alongside the queue rather than through it (the orders module's order e-mails, which
+// carry no PDF and need not wait for a burst): tracked so that a drain sees them too.
+const inFlight = new Set<Promise<unknown>>()
+
+/** Keeps count of mail work started outside the queue until it settles; answers the same promise. */
+export function trackMail<T>(work: Promise<T>): Promise<T> {
+  inFlight.add(work)
+  const done = () => inFlight.delete(work)
+  work.then(done, done)
+  return work
+}
+
+/**
+ * Waits until no mail is queued or in flight, including mail queued meanwhile by mail that was
+ * still going out (a shutdown, or a test file closing its database). Failures are logged where
+ * they happen, as ever; this only waits. Gives up after `timeoutMs` and answers how many are left,
+ * so a mail that hangs is reported rather than waited on forever.
+ */
+export async function drainMail(timeoutMs = 30_000): Promise<number> {
+  const until = Date.now() + timeoutMs
+  const left = () => pending + inFlight.size
+  while (left() > 0 && Date.now() < until) {
+    const wait = Promise.allSettled([tail, ...inFlight])
+    await Promise.race([wait, new Promise((r) => setTimeout(r, Math.max(0, until - Date.now())))])
+  }
+  return left()
+}

@@ -18,7 +18,7 @@ import { price, pricingSettings, requireSellable } from '@server/modules/orders/
 import { findOrder } from '@server/modules/orders/order-queries'
 import type { OrderViewer } from '@server/modules/orders/order-queries'
 import { orderingShop } from '@server/modules/orders/order-shop'
-import { insertLines, planStock, reserve } from '@server/modules/orders/orders.service'
+import { insertLines, newLine, planStock, reserve } from '@server/modules/orders/orders.service'
 import { retryingTransaction } from '@server/modules/orders/transactions'
 import { getSettings } from '@server/modules/settings/settings.service'
 import { raiseInvoiceForOrder, voidInvoiceForOrder } from '@server/modules/invoices/invoices.service'
@@ -273,21 +273,7 @@ export async function editOrderLines(
         })
         continue
       }
-      const p = products.get(l.productId)!
-      const priced = pricing.lines[i]!
-      const values = {
-        productId: l.productId,
-        sku: p.sku,
-        name: p.name,
-        cases: priced.cases,
-        casePack: p.casePack,
-        bars: priced.bars,
-        unitPriceCents: priced.unitPriceCents,
-        lineTotalCents: priced.lineTotalCents,
-        preorder: l.preorder,
-        promisedDate: l.preorder ? promises.get(i)! : null,
-        sortOrder: i,
-      }
+      const values = newLine(l, i, products, pricing, promises)
       if (was) {
         lineIds.set(i, was.id)
         await sequelize.query(

@@ -13,6 +13,7 @@ import { logger } from '@server/lib/logger'
 import { sendMail } from '@server/lib/mailer'
 import { findOrder } from '@server/modules/orders/order-queries'
 import { getSettings } from '@server/modules/settings/settings.service'
+import { trackMail } from '@server/modules/invoices/mail-queue'
 
 // Order e-mails go out after the transaction that changed the order has committed, so nobody is
 // told about an order that was rolled back. A mail that fails is logged by the mailer, never thrown.
@@ -116,10 +117,12 @@ export async function sendOrderMails(mails: OrderMail[]): Promise<void> {
 
 /**
  * Sends the mails without holding up the answer to the person who acted (a message takes a
- * round trip to the mail relay). Failures are logged, never thrown.
+ * round trip to the mail relay). Failures are logged, never thrown; `drainMail` waits for them.
  */
 export function sendOrderMailsLater(mails: OrderMail[]): void {
-  void sendOrderMails(mails).catch((err: unknown) => {
-    logger.warn('order mail not sent', { error: err instanceof Error ? err.message : String(err) })
-  })
+  void trackMail(
+    sendOrderMails(mails).catch((err: unknown) => {
+      logger.warn('order mail not sent', { error: err instanceof Error ? err.message : String(err) })
+    }),
+  )
 }

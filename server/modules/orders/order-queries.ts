@@ -3,6 +3,7 @@ import type { Transaction } from 'sequelize'
 import type { OrderStatus } from '@shared/domain/orders/order-status'
 import type { OrderDto, OrderLineDto, OrderListQuery } from '@shared/schemas/orders'
 import { sequelize } from '@server/db/sequelize'
+import { awaitingPaymentSql } from '@server/modules/invoices/prepay-payment'
 import { getSettings } from '@server/modules/settings/settings.service'
 
 /** Who is asking decides what an order shows: a packer never sees a price. */
@@ -36,6 +37,10 @@ type OrderRow = {
   packed_at: Date | null
   cartons: number | null
   shipped_at: Date | null
+  invoice_id: number | null
+  invoice_number: string | null
+  invoice_void: boolean | null
+  awaiting_payment: boolean
 }
 
 type LineRow = {
@@ -58,11 +63,19 @@ const ORDER_SELECT = `
   SELECT o.id, o.number, o.status, o.shop_id, s.trading_name AS shop_name, o.po_number, o.note,
          o.requested_ship_date, o.is_opening_order, o.subtotal_cents, o.shipping_cents, o.tax_cents,
          o.total_cents, o.tax_exempt, o.weight_g, o.created_at, pu.name AS placed_by_name, o.confirmed_at,
-         o.cancelled_at, o.cancel_reason, pk.name AS packer_name, o.packed_at, o.cartons, o.shipped_at
+         o.cancelled_at, o.cancel_reason, pk.name AS packer_name, o.packed_at, o.cartons, o.shipped_at,
+         inv.id AS invoice_id, inv.number AS invoice_number, inv.void AS invoice_void,
+         ${awaitingPaymentSql('o.id')} AS awaiting_payment
     FROM orders o
     JOIN shops s ON s.id = o.shop_id
     LEFT JOIN users pu ON pu.id = o.placed_by
-    LEFT JOIN users pk ON pk.id = o.packer_id`
+    LEFT JOIN users pk ON pk.id = o.packer_id
+    LEFT JOIN LATERAL (
+      SELECT i.id, i.number, i.voided_at IS NOT NULL AS void
+        FROM invoices i
+       WHERE i.order_id = o.id AND i.kind = 'invoice'
+       ORDER BY i.voided_at IS NULL DESC, i.id DESC
+       LIMIT 1) inv ON true`
 
 /** Every line of these orders with its allocations' lot codes, oldest batch first: one query. */
 async function linesOf(orderIds: number[], transaction?: Transaction): Promise<Map<number, LineRow[]>> {
@@ -120,8 +133,13 @@ function toDto(o: OrderRow, lines: LineRow[], withPrices: boolean, currency: str
           taxCents: o.tax_cents,
           totalCents: o.total_cents,
           taxExempt: o.tax_exempt,
+          invoice:
+            o.invoice_id !== null
+              ? { id: o.invoice_id, number: o.invoice_number!, void: o.invoice_void === true }
+              : null,
         }
       : {}),
+    awaitingPayment: o.awaiting_payment,
     currency,
     weightG: o.weight_g,
     waitingForStock: lineDtos.some((l) => l.preorder && l.allocations.length === 0),

@@ -15,6 +15,7 @@ import type { ReadyBatch } from '@server/modules/availability/availability.servi
 import { recordStockMove } from '@server/modules/batches/stock-moves.service'
 import { sellableProducts } from '@server/modules/catalogue/catalogue.service'
 import type { SellableProduct } from '@server/modules/catalogue/catalogue.service'
+import type { OrderPricing } from '@shared/domain/orders/order-pricing'
 import { Order } from '@server/modules/orders/order.model'
 import { sendOrderMailsLater } from '@server/modules/orders/order-mail'
 import type { OrderMail } from '@server/modules/orders/order-mail'
@@ -145,6 +146,35 @@ export type NewLine = {
   preorder: boolean
   promisedDate: string | null
   sortOrder: number
+}
+
+/**
+ * The row of the `i`th line sent: the product's SKU, name and case pack as sold today, the cases
+ * and bars and the price break from the pricing, and a pre-order's promised date. Placing an order
+ * and changing its lines build their rows here alike.
+ */
+export function newLine(
+  l: { productId: number; preorder: boolean },
+  i: number,
+  products: ReadonlyMap<number, SellableProduct>,
+  pricing: OrderPricing,
+  promises: ReadonlyMap<number, string>,
+): NewLine {
+  const p = products.get(l.productId)!
+  const priced = pricing.lines[i]!
+  return {
+    productId: l.productId,
+    sku: p.sku,
+    name: p.name,
+    cases: priced.cases,
+    casePack: p.casePack,
+    bars: priced.bars,
+    unitPriceCents: priced.unitPriceCents,
+    lineTotalCents: priced.lineTotalCents,
+    preorder: l.preorder,
+    promisedDate: l.preorder ? promises.get(i)! : null,
+    sortOrder: i,
+  }
 }
 
 /** Inserts lines in one statement; returns their ids in the same order. */
@@ -303,23 +333,7 @@ export async function placeOrder(args: {
       )
       const lineIds = await insertLines(
         order.id,
-        input.lines.map((l, i) => {
-          const p = products.get(l.productId)!
-          const priced = pricing.lines[i]!
-          return {
-            productId: l.productId,
-            sku: p.sku,
-            name: p.name,
-            cases: priced.cases,
-            casePack: p.casePack,
-            bars: priced.bars,
-            unitPriceCents: priced.unitPriceCents,
-            lineTotalCents: priced.lineTotalCents,
-            preorder: l.preorder,
-            promisedDate: l.preorder ? promises.get(i)! : null,
-            sortOrder: i,
-          }
-        }),
+        input.lines.map((l, i) => newLine(l, i, products, pricing, promises)),
         t,
       )
       await reserve(allocations, (i) => lineIds[i]!, order.id, userId, t)

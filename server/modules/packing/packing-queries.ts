@@ -1,6 +1,7 @@
 import { QueryTypes } from 'sequelize'
 import type { Transaction } from 'sequelize'
 import type { OrderStatus } from '@shared/domain/orders/order-status'
+import { walkOrder } from '@shared/domain/packing/walk-order'
 import type {
   PackingLine,
   PackingOrderDto,
@@ -11,6 +12,7 @@ import type {
 import { formatAddress } from '@shared/schemas/shops'
 import type { Address } from '@shared/schemas/shops'
 import { sequelize } from '@server/db/sequelize'
+import { awaitingPaymentSql } from '@server/modules/invoices/prepay-payment'
 
 // Read paths of the packing bench. None of these selects a price, a cost or a margin: what they
 // return goes to packers as it is.
@@ -34,6 +36,7 @@ type QueueRow = {
   bars: number
   allocated_bars: number
   unallocated_lines: number
+  awaiting_payment: boolean
 }
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null)
@@ -48,7 +51,8 @@ export async function packingQueue(): Promise<{
             o.created_at, o.confirmed_at, o.packer_id, pk.name AS packer_name, o.packing_started_at, o.packed_at,
             count(l.id)::int AS line_count, COALESCE(sum(l.cases), 0)::int AS cases, COALESCE(sum(l.bars), 0)::int AS bars,
             COALESCE(sum(al.bars), 0)::int AS allocated_bars,
-            count(l.id) FILTER (WHERE COALESCE(al.bars, 0) <> l.bars)::int AS unallocated_lines
+            count(l.id) FILTER (WHERE COALESCE(al.bars, 0) <> l.bars)::int AS unallocated_lines,
+            ${awaitingPaymentSql('o.id')} AS awaiting_payment
        FROM orders o
        JOIN shops s ON s.id = o.shop_id
        LEFT JOIN users pk ON pk.id = o.packer_id
@@ -73,6 +77,7 @@ export async function packingQueue(): Promise<{
     cases: r.cases,
     bars: r.bars,
     readyToPack: r.unallocated_lines === 0,
+    awaitingPayment: r.awaiting_payment,
     packer: r.packer_id !== null ? { id: r.packer_id, name: r.packer_name ?? '' } : null,
     packingStartedAt: iso(r.packing_started_at),
   })
@@ -149,6 +154,7 @@ type OrderRow = {
   ship_cartons: number | null
   ship_weight_g: number | null
   shipped_by: string | null
+  awaiting_payment: boolean
 }
 
 /** The order as the packing bench sees it; null when there is no such order. */
@@ -161,7 +167,7 @@ export async function packingOrder(
             s.shipping_address, o.po_number, o.note, o.requested_ship_date, o.created_at, o.packer_id,
             pk.name AS packer_name, o.packing_started_at, o.packed_at, o.cartons, o.packed_weight_g, o.weight_g,
             sh.carrier, sh.tracking_number, sh.ship_date, sh.cartons AS ship_cartons, sh.weight_g AS ship_weight_g,
-            su.name AS shipped_by
+            su.name AS shipped_by, ${awaitingPaymentSql('o.id')} AS awaiting_payment
        FROM orders o
        JOIN shops s ON s.id = o.shop_id
        LEFT JOIN users pk ON pk.id = o.packer_id
@@ -190,6 +196,7 @@ export async function packingOrder(
     },
     lines,
     readyToPack: lines.length > 0 && lines.every((l) => l.allocatedBars === l.bars),
+    awaitingPayment: o.awaiting_payment,
     packer: o.packer_id !== null ? { id: o.packer_id, name: o.packer_name ?? '' } : null,
     packingStartedAt: iso(o.packing_started_at),
     packedAt: iso(o.packed_at),
@@ -226,7 +233,7 @@ type PickRow = {
 /**
  * The bars to pull for these orders: per product (by SKU), then per batch lot in the order the
  * bars were allocated (oldest ready batch first), each lot with its shelf location and the orders
- * its bars go to.
+ * its bars go to; and the same lots as stops in walking order (`walkOrder`).
  */
 export async function pickList(
   orders: {
@@ -283,9 +290,21 @@ export async function pickList(
     else lot.orders.push({ orderId: r.order_id, number: numberOf.get(r.order_id) ?? '', bars: r.bars })
   }
   const list = [...products.values()].map((p) => ({ ...p, cases: Math.floor(p.bars / p.casePack) }))
+  const stops = walkOrder(
+    list.flatMap((p) =>
+      p.lots.map((lot) => ({
+        ...lot,
+        productId: p.productId,
+        sku: p.sku,
+        name: p.name,
+        casePack: p.casePack,
+      })),
+    ),
+  )
   return {
     orders,
     products: list,
+    stops,
     totalBars: list.reduce((n, p) => n + p.bars, 0),
     totalCases: list.reduce((n, p) => n + p.cases, 0),
   }

@@ -24,7 +24,9 @@ import { audit } from '@server/modules/audit/audit.service'
 import { Ingredient } from '@server/modules/ingredients/ingredient.model'
 import { IngredientLot } from '@server/modules/purchases/ingredient-lot.model'
 import {
-  checkAgainstRecords,
+  checkIngredientAndDate,
+  duplicateDelivery,
+  recordedDeliveries,
   lotColumns,
   lotRows,
   studioToday,
@@ -135,6 +137,14 @@ async function checkRows(text: string, transaction?: Transaction): Promise<Check
   const archived = new Map<string, Ingredient>()
   for (const i of ingredients) (i.archivedAt ? archived : active).set(i.name.trim().toLowerCase(), i)
   const seen = new Map<string, number>()
+  // Rows that passed every other check wait here for the one query against recorded purchases.
+  const pending: {
+    row: number
+    add: (field: ImportRowError['field'], message: string) => void
+    errors: ImportRowError[]
+    purchase: PurchaseValues
+    inFile: string | null
+  }[] = []
 
   const out: Checked[] = []
   for (const record of rows) {
@@ -177,14 +187,13 @@ async function checkRows(text: string, transaction?: Transaction): Promise<Check
       costCents: cost ?? 0,
       freightCents: freight ?? 0,
     })
-    let purchase: PurchaseValues | null = null
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         const column = COLUMN_OF[String(issue.path[0])]
         if (column) add(column, issue.message)
       }
     } else if (ingredient && errors.length === 0) {
-      for (const p of await checkAgainstRecords(parsed.data, { today, ingredient, transaction })) {
+      for (const p of checkIngredientAndDate(parsed.data, ingredient, today)) {
         add(COLUMN_OF[p.field] ?? 'line', p.message)
       }
       const key = [
@@ -193,20 +202,35 @@ async function checkRows(text: string, transaction?: Transaction): Promise<Check
         values.lot_code.toLowerCase(),
         values.received_on,
       ].join('|')
+      let inFile: string | null = null
       if (values.lot_code && seen.has(key)) {
-        add(
-          'lot_code',
-          `The same purchase is on line ${seen.get(key)} already (same ingredient, supplier, lot code and date).`,
-        )
+        inFile = `The same purchase is on line ${seen.get(key)} already (same ingredient, supplier, lot code and date).`
       } else if (values.lot_code) seen.set(key, record.line)
-      if (errors.length === 0) purchase = parsed.data
+      pending.push({ row: out.length, add, errors, purchase: parsed.data, inFile })
     }
-    // Column order, so the errors read left to right like the row.
-    errors.sort(
+    // The purchase is set below once the row has passed the check against recorded purchases.
+    out.push({ line: record.line, values, errors, purchase: null })
+  }
+
+  // One query for every row's recorded duplicate; a recorded one is named before one within the file.
+  const recorded = await recordedDeliveries(
+    pending.map((p) => p.purchase),
+    { transaction },
+  )
+  pending.forEach((p, i) => {
+    if (recorded[i] !== undefined) {
+      const dup = duplicateDelivery(recorded[i])
+      p.add(COLUMN_OF[dup.field] ?? 'line', dup.message)
+    }
+    if (p.inFile) p.add('lot_code', p.inFile)
+    if (p.errors.length === 0) out[p.row]!.purchase = p.purchase
+  })
+  // Column order, so the errors read left to right like the row.
+  for (const row of out) {
+    row.errors.sort(
       (a, b) =>
         IMPORT_COLUMNS.indexOf(a.field as ImportColumn) - IMPORT_COLUMNS.indexOf(b.field as ImportColumn),
     )
-    out.push({ line: record.line, values, errors, purchase })
   }
   return out
 }

@@ -148,11 +148,25 @@ export async function checkAgainstRecords(
   v: PurchaseValues,
   ctx: { today: string; excludeLotId?: number; transaction?: Transaction; ingredient?: Ingredient | null },
 ): Promise<ErrorDetail[]> {
-  const problems: ErrorDetail[] = []
   const ingredient =
     ctx.ingredient !== undefined
       ? ctx.ingredient
       : await Ingredient.findByPk(v.ingredientId, { transaction: ctx.transaction })
+  const problems = checkIngredientAndDate(v, ingredient, ctx.today)
+  if (ingredient) {
+    const [dup] = await recordedDeliveries([{ ...v, ingredientId: ingredient.id }], ctx)
+    if (dup !== undefined) problems.push(duplicateDelivery(dup))
+  }
+  return problems
+}
+
+/** The checks of checkAgainstRecords that need no query: the ingredient found (or not), the unit, the date. */
+export function checkIngredientAndDate(
+  v: PurchaseValues,
+  ingredient: Ingredient | null,
+  today: string,
+): ErrorDetail[] {
+  const problems: ErrorDetail[] = []
   if (!ingredient)
     problems.push({ field: 'ingredientId', message: 'No such ingredient: choose one from the list.' })
   else if (ingredient.archivedAt) {
@@ -164,32 +178,61 @@ export async function checkAgainstRecords(
     const unit = unitProblem(ingredient.kind, v.unit)
     if (unit) problems.push({ field: 'unit', message: unit })
   }
-  if (compareIso(v.receivedOn, ctx.today) > 0) {
+  if (compareIso(v.receivedOn, today) > 0) {
     problems.push({
       field: 'receivedOn',
-      message: `The date received cannot be in the future (today is ${ctx.today}).`,
+      message: `The date received cannot be in the future (today is ${today}).`,
     })
   }
-  if (v.supplierLotCode && ingredient) {
-    const [dup] = await sequelize.query<{ id: number }>(
-      `SELECT id FROM ingredient_lots
-        WHERE ingredient_id = $1 AND lower(supplier) = lower($2) AND lower(supplier_lot_code) = lower($3)
-          AND received_on = $4 AND ($5::int IS NULL OR id <> $5)
-        LIMIT 1`,
-      {
-        bind: [ingredient.id, v.supplier, v.supplierLotCode, v.receivedOn, ctx.excludeLotId ?? null],
-        type: QueryTypes.SELECT,
-        transaction: ctx.transaction,
-      },
-    )
-    if (dup) {
-      problems.push({
-        field: 'supplierLotCode',
-        message: `Already recorded as purchase #${dup.id}: same ingredient, supplier, lot code and date.`,
-      })
-    }
-  }
   return problems
+}
+
+type DeliveryKey = Pick<PurchaseValues, 'ingredientId' | 'supplier' | 'supplierLotCode' | 'receivedOn'>
+
+/**
+ * For each delivery, the id of a purchase already recorded with the same ingredient, supplier,
+ * lot code and date (case aside), or undefined; one query however many are asked about. A
+ * delivery without a lot code is never a duplicate.
+ */
+export async function recordedDeliveries(
+  keys: readonly DeliveryKey[],
+  ctx: { excludeLotId?: number; transaction?: Transaction } = {},
+): Promise<(number | undefined)[]> {
+  const asked = keys.map((k, i) => ({ ...k, i })).filter((k) => k.supplierLotCode)
+  const out: (number | undefined)[] = keys.map(() => undefined)
+  if (asked.length === 0) return out
+  const rows = await sequelize.query<{ i: number; id: number }>(
+    `SELECT k.i, dup.id
+       FROM unnest($1::int[], $2::int[], $3::text[], $4::text[], $5::date[])
+            AS k(i, ingredient_id, supplier, supplier_lot_code, received_on)
+       JOIN LATERAL (
+         SELECT l.id FROM ingredient_lots l
+          WHERE l.ingredient_id = k.ingredient_id AND lower(l.supplier) = lower(k.supplier)
+            AND lower(l.supplier_lot_code) = lower(k.supplier_lot_code) AND l.received_on = k.received_on
+            AND ($6::int IS NULL OR l.id <> $6)
+          LIMIT 1) dup ON true`,
+    {
+      bind: [
+        asked.map((k) => k.i),
+        asked.map((k) => k.ingredientId),
+        asked.map((k) => k.supplier),
+        asked.map((k) => k.supplierLotCode),
+        asked.map((k) => k.receivedOn),
+        ctx.excludeLotId ?? null,
+      ],
+      type: QueryTypes.SELECT,
+      transaction: ctx.transaction,
+    },
+  )
+  for (const r of rows) out[r.i] = r.id
+  return out
+}
+
+export function duplicateDelivery(existingId: number): ErrorDetail {
+  return {
+    field: 'supplierLotCode',
+    message: `Already recorded as purchase #${existingId}: same ingredient, supplier, lot code and date.`,
+  }
 }
 
 /** The columns of a purchase as stored: entered quantity and unit, and the base quantity (g or each). */

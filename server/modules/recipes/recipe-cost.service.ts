@@ -8,9 +8,9 @@ import { costBreakdown, costPerBar } from '@shared/domain/costing/costing'
 import type { CostCategory, CostSheet, CostSheetLine, IngredientKind, Recipe } from '@shared/schemas/recipes'
 import { AppError } from '@server/lib/app-error'
 import { getSettings } from '@server/modules/settings/settings.service'
+import { currentUnitCosts } from '@server/modules/ingredients/ingredients.service'
 import {
   costedIngredientIds,
-  currentUnitCosts,
   loadRecipe,
   loadRecipes,
   toBatchRecipe,

@@ -2,7 +2,6 @@ import type { Transaction } from 'sequelize'
 import { QueryTypes } from 'sequelize'
 import type { IngredientKind, Recipe, RecipeIngredientOption, WaterMode } from '@shared/schemas/recipes'
 import type { BatchRecipe } from '@shared/domain/batch-sheet/batch-sheet'
-import { weightedAverageUnitCost } from '@shared/domain/costing/costing'
 import { sequelize } from '@server/db/sequelize'
 
 // Read paths for recipes, on raw SQL: a recipe is one row plus its items joined to ingredients.
@@ -145,32 +144,6 @@ export async function loadRecipes(ids: readonly number[], transaction?: Transact
 
 export async function loadRecipe(id: number, transaction?: Transaction): Promise<Recipe | null> {
   return (await loadRecipes([id], transaction))[0] ?? null
-}
-
-/**
- * Current unit cost (cents per g or per item) of each ingredient: the average over the lots on
- * hand weighted by what is left in each; null when nothing is on hand.
- */
-export async function currentUnitCosts(
-  ingredientIds: readonly number[],
-  transaction?: Transaction,
-): Promise<Map<number, number | null>> {
-  const out = new Map<number, number | null>(ingredientIds.map((id) => [id, null]))
-  if (ingredientIds.length === 0) return out
-  const lots = await sequelize.query<{ ingredient_id: number; remaining: string; unit_cost: string }>(
-    `SELECT ingredient_id, remaining, (cost_cents + freight_cents) / quantity AS unit_cost
-       FROM ingredient_lots WHERE remaining > 0 AND ingredient_id = ANY($1::int[])`,
-    { bind: [ingredientIds], type: QueryTypes.SELECT, transaction },
-  )
-  const grouped = new Map<number, { remainingQuantity: number; unitCost: number }[]>()
-  for (const l of lots) {
-    grouped.set(l.ingredient_id, [
-      ...(grouped.get(l.ingredient_id) ?? []),
-      { remainingQuantity: Number(l.remaining), unitCost: Number(l.unit_cost) },
-    ])
-  }
-  for (const [id, ls] of grouped) out.set(id, weightedAverageUnitCost(ls))
-  return out
 }
 
 /** Every ingredient a recipe's cost depends on. */

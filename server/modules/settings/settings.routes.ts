@@ -7,11 +7,12 @@ import { body, validate } from '@server/middlewares/validate'
 import { audit } from '@server/modules/audit/audit.service'
 import { getSettings, updateSettings } from '@server/modules/settings/settings.service'
 
-/** The studio's public profile: every signed-in person sees whom they deal with. */
+/** The studio's public profile and currency: every signed-in person sees whom they deal with, in what money. */
 export function studioRoutes() {
   const r = Router()
   r.get('/', requireAuth, async (_req: Request, res: Response) => {
-    res.json({ studio: (await getSettings()).studio })
+    const { studio, currency } = await getSettings()
+    res.json({ studio, currency })
   })
   return r
 }

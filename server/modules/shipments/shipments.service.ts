@@ -8,6 +8,7 @@ import { studioToday } from '@server/modules/availability/availability.service'
 import { recordStockMove } from '@server/modules/batches/stock-moves.service'
 import { raiseInvoiceForOrder } from '@server/modules/invoices/invoices.service'
 import { holdMail, queueMail } from '@server/modules/invoices/mail-queue'
+import { awaitingPaymentSql } from '@server/modules/invoices/prepay-payment'
 import { retryingTransaction } from '@server/modules/orders/transactions'
 import { lockOrder, nextStatus } from '@server/modules/packing/packing.service'
 import type { PackingUser } from '@server/modules/packing/packing.service'
@@ -24,7 +25,8 @@ export type ShipOptions = {
  * allocation turned from reserved into a `shipped` ledger move (batches locked in ready-date
  * order, as placing an order locks them, so two writers never wait on each other crosswise), the order marked shipped and its invoice raised
  * with the next gapless number of the ship date's year (unless a prepay account's invoice was
- * raised at confirmation). A failure anywhere rolls all of it back, the invoice number included.
+ * raised at confirmation: that order ships only once the invoice is paid in full, else 409
+ * `awaiting_payment`). A failure anywhere rolls all of it back, the invoice number included.
  * The buyer is e-mailed after the commit.
  */
 export async function shipOrder(
@@ -46,6 +48,26 @@ export async function shipOrder(
         'SELECT cartons, packed_weight_g, created_at FROM orders WHERE id = $1',
         { bind: [orderId], type: QueryTypes.SELECT, transaction: t },
       )
+      const [existing] = await sequelize.query<{ id: number; number: string; awaiting_payment: boolean }>(
+        `SELECT id, number, ${awaitingPaymentSql('$1')} AS awaiting_payment
+           FROM invoices WHERE order_id = $1 AND kind = 'invoice' AND voided_at IS NULL`,
+        { bind: [orderId], type: QueryTypes.SELECT, transaction: t },
+      )
+      if (existing?.awaiting_payment) {
+        // No amounts: a packer may be the one asking.
+        throw AppError.conflict(
+          'awaiting_payment',
+          `Order ${o.number} is on prepay terms and invoice ${existing.number} is not yet paid in full: it ships once the studio records the payment.`,
+          [
+            {
+              field: 'invoice',
+              message: `Invoice ${existing.number} awaits payment.`,
+              invoiceId: existing.id,
+              invoiceNumber: existing.number,
+            },
+          ],
+        )
+      }
       const placedOn = isoToday(order!.created_at, timeZone)
       if (compareIso(input.shipDate, placedOn) < 0) {
         throw AppError.field(
@@ -72,10 +94,6 @@ export async function shipOrder(
       await sequelize.query(
         'UPDATE orders SET status = $2, shipped_at = now(), updated_at = now() WHERE id = $1',
         { bind: [orderId, to], transaction: t },
-      )
-      const [existing] = await sequelize.query<{ id: number; number: string }>(
-        `SELECT id, number FROM invoices WHERE order_id = $1 AND kind = 'invoice' AND voided_at IS NULL`,
-        { bind: [orderId], type: QueryTypes.SELECT, transaction: t },
       )
       const allocations = await sequelize.query<{ order_line_id: number; batch_id: number; bars: number }>(
         `SELECT a.order_line_id, a.batch_id, a.bars

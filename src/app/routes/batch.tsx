@@ -6,6 +6,7 @@ import { paths } from '@/config/paths'
 import { useMe } from '@/features/auth/api/me'
 import { useBatch } from '@/features/batches/api/batch'
 import { BatchDetails } from '@/features/batches/components/batch-details'
+import { useStudioCurrency } from '@/features/studio/api/studio'
 import { ApiError } from '@/lib/api-client'
 
 /** One batch, for the owner (with costs and purchase links) and the packer (without). */
@@ -14,6 +15,7 @@ export function Component() {
   const id = Number(batchId)
   const me = useMe()
   const batch = useBatch(id)
+  const currency = useStudioCurrency()
   const owner = me.data?.role === 'owner'
   const back = owner
     ? { to: paths.owner.batches, label: 'All batches' }
@@ -34,6 +36,7 @@ export function Component() {
       batch={batch.data}
       back={back}
       owner={owner}
+      currency={currency}
       purchaseHref={owner ? paths.owner.purchase : undefined}
     />
   )

@@ -5,6 +5,7 @@ import { Stat } from '@/components/ui/stat'
 import { formatDate } from '@shared/domain/dates/dates'
 import { useInvoices } from '@/features/invoices/api/invoices'
 import { InvoicesTable } from '@/features/invoices/components/invoices-table'
+import { useStudioCurrency } from '@/features/studio/api/studio'
 import { useCardPaymentsStatus } from '@/features/card-payments/api/card-payments'
 import { PayByCardButton } from '@/features/card-payments/components/pay-by-card-button'
 import type { InvoiceListItem } from '@shared/schemas/invoices'
@@ -18,6 +19,7 @@ const payAction = {
 export function Component() {
   const invoices = useInvoices()
   const cards = useCardPaymentsStatus()
+  const currency = useStudioCurrency()
   const items = invoices.data ?? []
   const open = items.filter((i) => i.outstandingCents > 0)
   const overdue = open.filter((i) => i.status === 'overdue')
@@ -35,12 +37,14 @@ export function Component() {
           <div className="grid gap-4 sm:grid-cols-3">
             <Stat
               label="Still to pay"
-              value={<Money cents={open.reduce((n, i) => n + i.outstandingCents, 0)} />}
+              value={<Money cents={open.reduce((n, i) => n + i.outstandingCents, 0)} currency={currency} />}
               hint={`${open.length} open ${open.length === 1 ? 'invoice' : 'invoices'}`}
             />
             <Stat
               label="Overdue"
-              value={<Money cents={overdue.reduce((n, i) => n + i.outstandingCents, 0)} />}
+              value={
+                <Money cents={overdue.reduce((n, i) => n + i.outstandingCents, 0)} currency={currency} />
+              }
               hint={overdue.length ? 'Past the due date' : 'Nothing past due'}
               tone={overdue.length ? 'clay' : 'default'}
             />
@@ -52,6 +56,7 @@ export function Component() {
           </div>
           <InvoicesTable
             items={items}
+            currency={currency}
             withPdf
             rowAction={cards.data?.enabled ? payAction : undefined}
             emptyMessage="No invoices yet: they are sent when your orders ship."

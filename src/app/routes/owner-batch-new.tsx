@@ -9,9 +9,11 @@ import { paths } from '@/config/paths'
 import { usePourableProducts } from '@/features/batches/api/batches'
 import { BatchForm } from '@/features/batches/components/batch-form'
 import { usePlannedPour } from '@/features/planning/api/plan'
+import { useStudioCurrency } from '@/features/studio/api/studio'
 
 export function Component() {
   const products = usePourableProducts()
+  const currency = useStudioCurrency()
   const navigate = useNavigate()
   const [search] = useSearchParams()
   const planId = Number(search.get('plan'))
@@ -61,6 +63,7 @@ export function Component() {
                 }
               : null
           }
+          currency={currency}
           onRecorded={(b) => {
             toast.success(
               `Batch ${b.lotCode} recorded: ${b.sellableBars} bars, ready on ${formatDate(b.readyDate)}.`,

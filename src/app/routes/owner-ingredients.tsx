@@ -1,5 +1,4 @@
 import { useCallback, useState } from 'react'
-import { useSearchParams } from 'react-router-dom'
 import { COST_RULE, INGREDIENT_KINDS } from '@shared/schemas/ingredients'
 import type { IngredientKind, IngredientRow } from '@shared/schemas/ingredients'
 import { Button, LinkButton } from '@/components/ui/button'
@@ -10,12 +9,13 @@ import { useIngredients } from '@/features/ingredients/api/ingredients'
 import { IngredientDialog } from '@/features/ingredients/components/ingredient-dialog'
 import { IngredientsTable } from '@/features/ingredients/components/ingredients-table'
 import { useSettings } from '@/features/studio/api/studio'
+import { useSearchFilters } from '@/lib/search-params'
 
 const isKind = (v: string | null): v is IngredientKind =>
   !!v && (INGREDIENT_KINDS as readonly string[]).includes(v)
 
 export function Component() {
-  const [search, setSearch] = useSearchParams()
+  const [search, setParam] = useSearchFilters()
   const kindParam = search.get('kind')
   const kind = isKind(kindParam) ? kindParam : ''
   const includeArchived = search.get('archived') === '1'
@@ -23,17 +23,6 @@ export function Component() {
   const currency = useSettings().data?.currency ?? 'USD'
   const [dialog, setDialog] = useState<{ ingredient: IngredientRow | null } | null>(null)
   const edit = useCallback((ingredient: IngredientRow) => setDialog({ ingredient }), [])
-
-  const setParam = (key: string, value: string | null) =>
-    setSearch(
-      (prev) => {
-        const next = new URLSearchParams(prev)
-        if (value) next.set(key, value)
-        else next.delete(key)
-        return next
-      },
-      { replace: true },
-    )
 
   return (
     <>

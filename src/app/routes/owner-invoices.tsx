@@ -13,7 +13,7 @@ import { invoicesCsvHref, useInvoices } from '@/features/invoices/api/invoices'
 import type { InvoiceFilter } from '@/features/invoices/api/invoices'
 import { InvoicesTable } from '@/features/invoices/components/invoices-table'
 import { paymentsCsvHref } from '@/features/payments/api/payments'
-import { useShops } from '@/features/studio/api/studio'
+import { useShops, useStudioCurrency } from '@/features/studio/api/studio'
 
 /** Every invoice and credit note, with filters kept in the address (so "Overdue" can be linked to). */
 export function Component() {
@@ -29,6 +29,7 @@ export function Component() {
   )
   const invoices = useInvoices(filter)
   const shops = useShops()
+  const currency = useStudioCurrency()
   const set = (key: string, value: string) => {
     const next = new URLSearchParams(params)
     if (value) next.set(key, value)
@@ -65,12 +66,12 @@ export function Component() {
           <Stat label={filtered ? 'Invoices shown' : 'Invoices'} value={items.length} />
           <Stat
             label="Still owed"
-            value={<Money cents={owed} />}
+            value={<Money cents={owed} currency={currency} />}
             hint={filtered ? 'On the invoices shown' : 'On all invoices'}
           />
           <Stat
             label="Overdue"
-            value={<Money cents={overdue.reduce((n, i) => n + i.outstandingCents, 0)} />}
+            value={<Money cents={overdue.reduce((n, i) => n + i.outstandingCents, 0)} currency={currency} />}
             hint={`${overdue.length} ${overdue.length === 1 ? 'invoice' : 'invoices'}`}
             tone={overdue.length ? 'clay' : 'default'}
           />
@@ -135,6 +136,7 @@ export function Component() {
         ) : (
           <InvoicesTable
             items={items}
+            currency={currency}
             showShop
             rowHref={(i) => paths.owner.invoice(i.id)}
             emptyMessage={

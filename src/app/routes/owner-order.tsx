@@ -1,13 +1,15 @@
 import { useState } from 'react'
 import { useParams } from 'react-router-dom'
 import { canTransition, isCancellableBy } from '@shared/domain/orders/order-status'
-import { Button, LinkButton } from '@/components/ui/button'
+import { Button, LinkButton, buttonClasses } from '@/components/ui/button'
 import { EmptyState } from '@/components/ui/empty-state'
+import { Notice } from '@/components/ui/notice'
 import { PageHeader } from '@/components/ui/page-header'
 import { LoadingBlock } from '@/components/ui/spinner'
 import { toast } from '@/components/ui/toast'
 import { paths } from '@/config/paths'
 import { useConfirmOrder, useOrder } from '@/features/orders/api/orders'
+import { packingSlipHref } from '@/features/packing/api/packing'
 import { CancelOrderDialog } from '@/features/orders/components/cancel-order-dialog'
 import { EditLinesDialog } from '@/features/orders/components/edit-lines-dialog'
 import { OrderDetail } from '@/features/orders/components/order-detail'
@@ -16,6 +18,8 @@ import { ApiError } from '@/lib/api-client'
 
 /** Lines may change while nobody has started packing. */
 const EDITABLE = ['placed', 'confirmed']
+/** From confirmation on, the order is on the packing bench (and has a packing slip). */
+const ON_BENCH = ['confirmed', 'packing', 'packed', 'shipped']
 
 export function Component() {
   const id = Number(useParams().orderId)
@@ -37,6 +41,7 @@ export function Component() {
     )
   }
   const o = order.data
+  const onBench = ON_BENCH.includes(o.status)
   return (
     <>
       <PageHeader
@@ -74,6 +79,46 @@ export function Component() {
           </>
         }
       />
+      {onBench || o.invoice ? (
+        <nav aria-label="Packing and invoice" className="mb-6 flex flex-wrap gap-2">
+          {onBench ? (
+            <>
+              <LinkButton to={paths.owner.packingOrder(o.id)} variant="secondary" size="sm">
+                Packing view
+              </LinkButton>
+              <a
+                href={packingSlipHref(o.id)}
+                target="_blank"
+                rel="noopener"
+                className={buttonClasses('secondary', 'sm')}
+              >
+                Packing slip (PDF)
+              </a>
+            </>
+          ) : null}
+          {o.invoice ? (
+            <LinkButton to={paths.owner.invoice(o.invoice.id)} variant="secondary" size="sm">
+              {o.invoice.void ? `Void invoice ${o.invoice.number}` : `Invoice ${o.invoice.number}`}
+            </LinkButton>
+          ) : null}
+        </nav>
+      ) : null}
+      {o.awaitingPayment && o.status !== 'shipped' && o.status !== 'cancelled' ? (
+        <Notice
+          title="Payment awaited"
+          className="mb-6"
+          action={
+            o.invoice ? (
+              <LinkButton to={paths.owner.invoice(o.invoice.id)} variant="secondary" size="sm">
+                Open invoice {o.invoice.number}
+              </LinkButton>
+            ) : null
+          }
+        >
+          {o.shopName} is on prepay terms and invoice {o.invoice?.number} is not yet paid in full. The order
+          can be packed; it cannot ship until the payment is recorded.
+        </Notice>
+      ) : null}
       <OrderDetail order={o} showLots />
       <CancelOrderDialog order={o} open={cancelling} onClose={() => setCancelling(false)} />
       {editing ? (

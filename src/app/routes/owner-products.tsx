@@ -4,9 +4,11 @@ import { LoadingBlock } from '@/components/ui/spinner'
 import { paths } from '@/config/paths'
 import { useProducts } from '@/features/products/api/products'
 import { ProductsTable } from '@/features/products/components/products-table'
+import { useStudioCurrency } from '@/features/studio/api/studio'
 
 export function Component() {
   const products = useProducts()
+  const currency = useStudioCurrency()
   return (
     <>
       <PageHeader
@@ -21,7 +23,11 @@ export function Component() {
           </>
         }
       />
-      {products.isPending ? <LoadingBlock /> : <ProductsTable products={products.data ?? []} />}
+      {products.isPending ? (
+        <LoadingBlock />
+      ) : (
+        <ProductsTable products={products.data ?? []} currency={currency} />
+      )}
     </>
   )
 }

@@ -1,5 +1,4 @@
 import { useMemo, useState } from 'react'
-import { useSearchParams } from 'react-router-dom'
 import { useQueryClient } from '@tanstack/react-query'
 import { isValidIsoDate } from '@shared/domain/dates/dates'
 import { COST_RULE } from '@shared/schemas/ingredients'
@@ -13,9 +12,10 @@ import { usePurchases } from '@/features/purchases/api/purchases'
 import { PurchaseDialog } from '@/features/purchases/components/purchase-dialog'
 import { PurchasesTable } from '@/features/purchases/components/purchases-table'
 import { useSettings } from '@/features/studio/api/studio'
+import { useSearchFilters } from '@/lib/search-params'
 
 export function Component() {
-  const [search, setSearch] = useSearchParams()
+  const [search, setParam] = useSearchFilters()
   const ingredientId = Number(search.get('ingredient')) || undefined
   const from = isValidIsoDate(search.get('from')) ? search.get('from')! : undefined
   const to = isValidIsoDate(search.get('to')) ? search.get('to')! : undefined
@@ -32,17 +32,6 @@ export function Component() {
     () => [...new Set((purchases.data ?? []).map((p) => p.supplier))].sort(),
     [purchases.data],
   )
-
-  const setParam = (key: string, value: string | null) =>
-    setSearch(
-      (prev) => {
-        const next = new URLSearchParams(prev)
-        if (value) next.set(key, value)
-        else next.delete(key)
-        return next
-      },
-      { replace: true },
-    )
 
   return (
     <>

@@ -7,6 +7,7 @@ import type { BadgeTone } from '@/components/ui/badge'
 import { Button, buttonClasses } from '@/components/ui/button'
 import { Card, CardBody, CardHeader } from '@/components/ui/card'
 import { EmptyState } from '@/components/ui/empty-state'
+import { Notice } from '@/components/ui/notice'
 import { PageHeader } from '@/components/ui/page-header'
 import { LoadingBlock } from '@/components/ui/spinner'
 import { toast } from '@/components/ui/toast'
@@ -103,6 +104,13 @@ export function Component() {
         }
       />
 
+      {o.awaitingPayment && o.status !== 'shipped' ? (
+        <Notice title="Payment awaited" className="mb-6">
+          {o.shopName} pays before its orders ship (prepay), and this order&rsquo;s invoice is not yet paid.
+          It can be packed now; it can ship once the studio records the payment.
+        </Notice>
+      ) : null}
+
       <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
         <div className="flex min-w-0 flex-col gap-6">
           <Card>
@@ -138,18 +146,24 @@ export function Component() {
                 description="The buyer gets the tracking number with the packing slip, and the invoice is sent."
               />
               <CardBody>
-                <ShipForm
-                  orderId={o.id}
-                  today={today}
-                  onShipped={(r) => {
-                    toast.success(
-                      r.invoice
-                        ? `${o.number} shipped. Invoice ${r.invoice.number} ${r.invoice.raisedNow ? 'raised and sent' : 'was already raised'}.`
-                        : `${o.number} shipped.`,
-                    )
-                    void qc.invalidateQueries({ queryKey: packingKeys.all })
-                  }}
-                />
+                {o.awaitingPayment ? (
+                  <p className="text-sm text-ink-800">
+                    Shipping opens once the prepay invoice is paid. The packed cartons wait here.
+                  </p>
+                ) : (
+                  <ShipForm
+                    orderId={o.id}
+                    today={today}
+                    onShipped={(r) => {
+                      toast.success(
+                        r.invoice
+                          ? `${o.number} shipped. Invoice ${r.invoice.number} ${r.invoice.raisedNow ? 'raised and sent' : 'was already raised'}.`
+                          : `${o.number} shipped.`,
+                      )
+                      void qc.invalidateQueries({ queryKey: packingKeys.all })
+                    }}
+                  />
+                )}
               </CardBody>
             </Card>
           ) : null}

@@ -118,7 +118,7 @@ export function Component() {
             <Card>
               <CardHeader
                 title="Pick list"
-                description="Pull each lot in this order, oldest batch first, so the lot codes on the slips match the bars."
+                description="Walk the shelves in this order and pull each lot named, so the lot codes on the slips match the bars."
               />
               <CardBody>
                 {pickList.data ? (

@@ -22,7 +22,7 @@ const columns = col.columns([
     header: 'Price',
     meta: { align: 'end' },
     enableGlobalFilter: false,
-    cell: (info) => <Money cents={info.getValue()} />,
+    cell: (info) => <Money cents={info.getValue()} currency="USD" />,
   }),
 ])
 

@@ -67,7 +67,7 @@ export type DataTableColumn<T extends RowData> = ColumnDef<DataTableFeatures, T,
  *   const col = dataTableColumnHelper<OrderRow>()
  *   const columns = col.columns([
  *     col.accessor('number', { header: 'Order' }),
- *     col.accessor('totalCents', { header: 'Total', meta: { align: 'end' }, cell: (c) => <Money cents={c.getValue()} /> }),
+ *     col.accessor('totalCents', { header: 'Total', meta: { align: 'end' }, cell: (c) => <Money cents={c.getValue()} currency={currency} /> }),
  *   ])
  */
 export function dataTableColumnHelper<T extends RowData>(): ColumnHelper<DataTableFeatures, T> {

@@ -21,8 +21,8 @@ describe('formatMoney refuses what it cannot show exactly', () => {
 })
 
 describe('Money', () => {
-  it('shows cents as dollars by default, with tabular figures', () => {
-    render(<Money cents={2599} locale="en-US" />)
+  it('shows cents in the currency given, with tabular figures', () => {
+    render(<Money cents={2599} currency="USD" locale="en-US" />)
     const amount = screen.getByText('$25.99')
     expect(amount).toHaveClass('tabular-nums')
   })

@@ -12,14 +12,15 @@ export function formatMoney(cents: number, currency = 'USD', locale = 'en-US'): 
 type MoneyProps = {
   /** An integer amount in minor units (cents). */
   cents: number
-  currency?: string
+  /** ISO 4217: the studio's currency (settings), never assumed. */
+  currency: string
   /** A BCP 47 locale (default en-US). */
   locale?: string
   className?: string
 }
 
 /** An amount of money with tabular figures, so columns of prices line up. */
-export function Money({ cents, currency = 'USD', locale, className }: MoneyProps) {
+export function Money({ cents, currency, locale, className }: MoneyProps) {
   return (
     <span className={cn('tabular-nums whitespace-nowrap', className)}>
       {formatMoney(cents, currency, locale)}

@@ -25,6 +25,8 @@ type Props = {
   /** Owners: costs, links to purchases, editing location and notes. */
   owner: boolean
   purchaseHref?: (lotId: number) => string
+  /** The studio's currency (settings) for the costs an owner sees. */
+  currency?: string
 }
 
 const lotCol = dataTableColumnHelper<BatchLotRow>()
@@ -38,7 +40,7 @@ function signed(n: number) {
 }
 
 /** One batch: what it is, what went into it, every move of its bars, and where they went. */
-export function BatchDetails({ batch, back, owner, purchaseHref }: Props) {
+export function BatchDetails({ batch, back, owner, purchaseHref, currency = 'USD' }: Props) {
   const [moving, setMoving] = useState(false)
   const [editing, setEditing] = useState(false)
 
@@ -74,12 +76,12 @@ export function BatchDetails({ batch, back, owner, purchaseHref }: Props) {
                 id: 'cost',
                 header: 'Cost',
                 meta: { align: 'end' as const },
-                cell: (c) => <Money cents={Math.round(c.getValue())} />,
+                cell: (c) => <Money cents={Math.round(c.getValue())} currency={currency} />,
               }),
             ]
           : []),
       ]),
-    [owner, purchaseHref],
+    [owner, purchaseHref, currency],
   )
 
   const moveColumns = useMemo(
@@ -144,9 +146,15 @@ export function BatchDetails({ batch, back, owner, purchaseHref }: Props) {
     ['Recorded by', batch.createdByName ?? '—'],
   ]
   if (owner && batch.costPerBarCents != null)
-    facts.push(['Cost per bar (frozen at pouring)', <Money key="c" cents={batch.costPerBarCents} />])
+    facts.push([
+      'Cost per bar (frozen at pouring)',
+      <Money key="c" cents={batch.costPerBarCents} currency={currency} />,
+    ])
   if (owner && batch.ingredientCostCents != null)
-    facts.push(['Ingredients for the batch', <Money key="i" cents={batch.ingredientCostCents} />])
+    facts.push([
+      'Ingredients for the batch',
+      <Money key="i" cents={batch.ingredientCostCents} currency={currency} />,
+    ])
 
   return (
     <>

@@ -72,11 +72,14 @@ export function BatchForm({
   products,
   onRecorded,
   plan,
+  currency,
 }: {
   products: PourableProduct[]
   onRecorded: (b: BatchDetail) => void
   /** A planned pour to start from: its product and oil weight; recording the batch marks it poured. */
   plan?: { id: number; productId: number; oilWeightG: number; description: string } | null
+  /** The studio's currency (settings) for the estimated cost. */
+  currency: string
 }) {
   const record = useRecordBatch()
   const [formError, setFormError] = useState<string | null>(null)
@@ -405,7 +408,11 @@ export function BatchForm({
               <div>
                 <dt className="text-ink-700">Cost per bar (estimate)</dt>
                 <dd className="text-base font-medium text-ink-900">
-                  {s.estimatedCostPerBarCents == null ? '—' : <Money cents={s.estimatedCostPerBarCents} />}
+                  {s.estimatedCostPerBarCents == null ? (
+                    '—'
+                  ) : (
+                    <Money cents={s.estimatedCostPerBarCents} currency={currency} />
+                  )}
                 </dd>
                 <dd className="text-ink-600">frozen from the lots actually used</dd>
               </div>

@@ -22,6 +22,8 @@ import { StockMoveDialog } from '@/features/batches/components/stock-move-dialog
 type Props = {
   /** Owners see the cost frozen on each batch; packers never do (nor does the API send it). */
   showCosts: boolean
+  /** The studio's currency (settings) for the costs shown. */
+  currency?: string
   batchHref: (id: number) => string
   /** What to offer when nothing has been poured yet (the owner's "Record a batch"). */
   emptyAction?: ReactNode
@@ -30,7 +32,7 @@ type Props = {
 const col = dataTableColumnHelper<BatchRow>()
 
 /** Every batch by where it stands: curing (with its progress), ready to sell, used up. */
-export function CuringScreen({ showCosts, batchHref, emptyAction }: Props) {
+export function CuringScreen({ showCosts, currency = 'USD', batchHref, emptyAction }: Props) {
   const [filter, setFilter] = useState<BatchFilter>({})
   const products = usePourableProducts()
   const batches = useBatches(filter)
@@ -69,7 +71,12 @@ export function CuringScreen({ showCosts, batchHref, emptyAction }: Props) {
                 id: 'cost',
                 header: 'Cost per bar',
                 meta: { align: 'end' as const },
-                cell: (c) => (c.row.original.costPerBarCents == null ? '—' : <Money cents={c.getValue()} />),
+                cell: (c) =>
+                  c.row.original.costPerBarCents == null ? (
+                    '—'
+                  ) : (
+                    <Money cents={c.getValue()} currency={currency} />
+                  ),
               }),
             ]
           : []),
@@ -89,7 +96,7 @@ export function CuringScreen({ showCosts, batchHref, emptyAction }: Props) {
           ),
         }),
       ]),
-    [showCosts],
+    [showCosts, currency],
   )
 
   const usedColumns = useMemo(

@@ -12,6 +12,8 @@ const col = dataTableColumnHelper<InvoiceListItem>()
 
 type Props = {
   items: InvoiceListItem[]
+  /** The studio's currency (settings), in which every amount is given. */
+  currency: string
   /** The owner's list names the shop; a buyer's does not need to. */
   showShop?: boolean
   /** Each row's PDF as a download (the buyer's list). */
@@ -26,6 +28,7 @@ type Props = {
 /** Invoices and credit notes: number, dates, status, and what was billed, paid and is still due. */
 export function InvoicesTable({
   items,
+  currency,
   showShop = false,
   withPdf = false,
   rowHref,
@@ -67,12 +70,12 @@ export function InvoicesTable({
         col.accessor('totalCents', {
           header: 'Total',
           meta: { align: 'end' },
-          cell: (c) => <Money cents={c.getValue()} />,
+          cell: (c) => <Money cents={c.getValue()} currency={currency} />,
         }),
         col.accessor('paidCents', {
           header: 'Paid',
           meta: { align: 'end' },
-          cell: (c) => <Money cents={c.getValue()} />,
+          cell: (c) => <Money cents={c.getValue()} currency={currency} />,
         }),
         col.accessor('outstandingCents', {
           header: 'Due now',
@@ -80,6 +83,7 @@ export function InvoicesTable({
           cell: (c) => (
             <Money
               cents={c.getValue()}
+              currency={currency}
               className={c.getValue() > 0 ? 'font-medium text-ink-900' : 'text-ink-600'}
             />
           ),
@@ -112,7 +116,7 @@ export function InvoicesTable({
             ]
           : []),
       ]),
-    [showShop, withPdf, rowAction],
+    [showShop, withPdf, rowAction, currency],
   )
   return (
     <DataTable

@@ -62,6 +62,11 @@ export function QueueTable({ items, me, orderHref, label, selection, toolbar, em
               <span className="block text-xs font-normal text-ink-600">
                 {c.row.original.poNumber ? `PO ${c.row.original.poNumber}` : 'No PO'}
               </span>
+              {c.row.original.awaitingPayment ? (
+                <Badge tone="clay" className="mt-1">
+                  Payment awaited
+                </Badge>
+              ) : null}
             </span>
           ),
         }),
@@ -114,14 +119,16 @@ export function QueueTable({ items, me, orderHref, label, selection, toolbar, em
           cell: (c) => {
             const o = c.row.original
             if (o.status === 'packed') {
+              // A prepay order waiting for its payment cannot ship yet: the link only opens it.
+              const verb = o.awaitingPayment ? 'View' : 'Ship'
               return (
                 <LinkButton
                   to={orderHref(o.orderId)}
                   size="sm"
                   variant="secondary"
-                  aria-label={`Ship ${o.number}`}
+                  aria-label={`${verb} ${o.number}`}
                 >
-                  Ship
+                  {verb}
                 </LinkButton>
               )
             }

@@ -29,6 +29,9 @@ const options: RecipeIngredientOption[] = [
   opt(4, 'Distilled water', 'liquid'),
   opt(5, 'Peppermint essential oil', 'fragrance', { maxUsagePct: 3 }),
   opt(6, 'Honey oat fragrance', 'fragrance', { maxUsagePct: 5, vanillinPct: 1.8 }),
+  opt(7, 'Kaolin clay', 'additive'),
+  opt(8, 'Ultramarine blue', 'colourant'),
+  opt(9, 'Kraft box', 'packaging'),
 ]
 
 function renderForm(onSave = vi.fn(async (_input: RecipeInput) => {})) {
@@ -50,6 +53,33 @@ async function fillBasics(user: ReturnType<typeof userEvent.setup>) {
 }
 
 describe('RecipeForm', () => {
+  it('adds, fills and removes additive and packaging lines, and saves them with their amounts', async () => {
+    const user = userEvent.setup()
+    const onSave = renderForm()
+    await fillBasics(user)
+    await user.clear(screen.getByLabelText('Oil 1 share (%)'))
+    await user.type(screen.getByLabelText('Oil 1 share (%)'), '100')
+    await user.click(screen.getByRole('button', { name: 'Add an additive' }))
+    await user.click(screen.getByRole('button', { name: 'Add an additive' }))
+    await user.selectOptions(screen.getByLabelText('Additive 1'), 'Kaolin clay')
+    await user.type(screen.getByLabelText('Additive 1 (g per kg of oils)'), '10')
+    await user.selectOptions(screen.getByLabelText('Additive 2'), 'Ultramarine blue')
+    await user.type(screen.getByLabelText('Additive 2 (g per kg of oils)'), '0.5')
+    await user.click(screen.getByRole('button', { name: 'Remove additive 1' }))
+    expect(screen.queryByLabelText('Additive 2')).toBeNull()
+    await user.click(screen.getByRole('button', { name: 'Add packaging' }))
+    // A packaging line starts at one item per bar.
+    expect(screen.getByLabelText('Packaging 1 (per bar)')).toHaveValue(1)
+    await user.selectOptions(screen.getByLabelText('Packaging 1'), 'Kraft box')
+    await user.click(screen.getByRole('button', { name: 'Save recipe' }))
+    await waitFor(() => expect(onSave).toHaveBeenCalledTimes(1))
+    expect(onSave.mock.calls[0]![0]).toMatchObject({
+      additives: [{ ingredientId: 8, gPerKg: 0.5 }],
+      packaging: [{ ingredientId: 9, qtyPerBar: 1 }],
+      fragrances: [],
+    })
+  })
+
   it('keeps Save off until the oils add up to 100 %, showing the running sum', async () => {
     const user = userEvent.setup()
     const onSave = renderForm()

@@ -1,8 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod'
-import { useState } from 'react'
+import { Fragment, useState } from 'react'
 import type { ReactNode } from 'react'
 import { useFieldArray, useForm, useWatch } from 'react-hook-form'
-import type { Control, FieldPath, UseFormRegister } from 'react-hook-form'
+import type { Control, FieldErrors, FieldPath, UseFormRegister } from 'react-hook-form'
 import {
   OILS_SUM_TOLERANCE,
   VANILLIN_WARN_PCT,
@@ -121,9 +121,6 @@ export function RecipeForm({
   const { register, control, formState } = form
   const { errors } = formState
   const oils = useFieldArray({ control, name: 'oils' })
-  const fragrances = useFieldArray({ control, name: 'fragrances' })
-  const additives = useFieldArray({ control, name: 'additives' })
-  const packaging = useFieldArray({ control, name: 'packaging' })
   const waterMode = useWatch({ control, name: 'waterMode' })
   const oilRows = useWatch({ control, name: 'oils' })
   const pcts = (oilRows ?? []).map((o) => (Number.isFinite(o?.pct) ? Number(o.pct) : 0))
@@ -337,123 +334,55 @@ export function RecipeForm({
         </CardBody>
       </Card>
 
-      <Card>
-        <CardHeader
-          title="Fragrance"
-          description="As a share of the oil weight, within each fragrance's maximum usage from its supplier's certificate."
-        />
-        <CardBody className="flex flex-col gap-3">
-          {fragrances.fields.length === 0 ? (
-            <p className="text-sm text-ink-600">No fragrance: an unscented bar.</p>
-          ) : null}
-          {fragrances.fields.map((row, i) => (
-            <div key={row.id} className="flex flex-col gap-1">
-              <Row onRemove={() => fragrances.remove(i)} removeLabel={`Remove fragrance ${i + 1}`}>
-                <IngredientSelect
-                  label={`Fragrance ${i + 1}`}
-                  name={`fragrances.${i}.ingredientId`}
-                  register={register}
-                  options={ofKinds('fragrance')}
-                  placeholder="Choose a fragrance…"
-                  error={errors.fragrances?.[i]?.ingredientId?.message}
-                />
-                <NumberField
-                  label={`Fragrance ${i + 1} (% of oils)`}
-                  name={`fragrances.${i}.pct`}
-                  register={register}
-                  error={errors.fragrances?.[i]?.pct?.message}
-                />
-              </Row>
-              <FragranceCheck control={control} index={i} options={options} />
-            </div>
-          ))}
-          <div>
-            <Button
-              variant="secondary"
-              size="sm"
-              onClick={() =>
-                fragrances.append({
-                  ingredientId: undefined as unknown as number,
-                  pct: undefined as unknown as number,
-                })
-              }
-            >
-              Add a fragrance
-            </Button>
-          </div>
-        </CardBody>
-      </Card>
+      <ItemSection
+        list="fragrances"
+        amount="pct"
+        noun="Fragrance"
+        amountLabel="% of oils"
+        title="Fragrance"
+        description="As a share of the oil weight, within each fragrance's maximum usage from its supplier's certificate."
+        empty="No fragrance: an unscented bar."
+        options={ofKinds('fragrance')}
+        placeholder="Choose a fragrance…"
+        addLabel="Add a fragrance"
+        newAmount={undefined as unknown as number}
+        control={control}
+        register={register}
+        errors={errors}
+        below={(i) => <FragranceCheck control={control} index={i} options={options} />}
+      />
 
-      <Card>
-        <CardHeader title="Additives and colourants" description="Grams per kilogram of oils." />
-        <CardBody className="flex flex-col gap-3">
-          {additives.fields.map((row, i) => (
-            <Row key={row.id} onRemove={() => additives.remove(i)} removeLabel={`Remove additive ${i + 1}`}>
-              <IngredientSelect
-                label={`Additive ${i + 1}`}
-                name={`additives.${i}.ingredientId`}
-                register={register}
-                options={ofKinds('additive', 'colourant')}
-                placeholder="Choose an additive or colourant…"
-                error={errors.additives?.[i]?.ingredientId?.message}
-              />
-              <NumberField
-                label={`Additive ${i + 1} (g per kg of oils)`}
-                name={`additives.${i}.gPerKg`}
-                register={register}
-                error={errors.additives?.[i]?.gPerKg?.message}
-              />
-            </Row>
-          ))}
-          <div>
-            <Button
-              variant="secondary"
-              size="sm"
-              onClick={() =>
-                additives.append({
-                  ingredientId: undefined as unknown as number,
-                  gPerKg: undefined as unknown as number,
-                })
-              }
-            >
-              Add an additive
-            </Button>
-          </div>
-        </CardBody>
-      </Card>
+      <ItemSection
+        list="additives"
+        amount="gPerKg"
+        noun="Additive"
+        amountLabel="g per kg of oils"
+        title="Additives and colourants"
+        description="Grams per kilogram of oils."
+        options={ofKinds('additive', 'colourant')}
+        placeholder="Choose an additive or colourant…"
+        addLabel="Add an additive"
+        newAmount={undefined as unknown as number}
+        control={control}
+        register={register}
+        errors={errors}
+      />
 
-      <Card>
-        <CardHeader title="Packaging" description="Items per bar, such as a box and a label." />
-        <CardBody className="flex flex-col gap-3">
-          {packaging.fields.map((row, i) => (
-            <Row key={row.id} onRemove={() => packaging.remove(i)} removeLabel={`Remove packaging ${i + 1}`}>
-              <IngredientSelect
-                label={`Packaging ${i + 1}`}
-                name={`packaging.${i}.ingredientId`}
-                register={register}
-                options={ofKinds('packaging')}
-                placeholder="Choose a packaging item…"
-                error={errors.packaging?.[i]?.ingredientId?.message}
-              />
-              <NumberField
-                label={`Packaging ${i + 1} (per bar)`}
-                name={`packaging.${i}.qtyPerBar`}
-                register={register}
-                error={errors.packaging?.[i]?.qtyPerBar?.message}
-              />
-            </Row>
-          ))}
-          <div>
-            <Button
-              variant="secondary"
-              size="sm"
-              onClick={() => packaging.append({ ingredientId: undefined as unknown as number, qtyPerBar: 1 })}
-            >
-              Add packaging
-            </Button>
-          </div>
-        </CardBody>
-      </Card>
+      <ItemSection
+        list="packaging"
+        amount="qtyPerBar"
+        noun="Packaging"
+        amountLabel="per bar"
+        title="Packaging"
+        description="Items per bar, such as a box and a label."
+        options={ofKinds('packaging')}
+        placeholder="Choose a packaging item…"
+        addLabel="Add packaging"
+        newAmount={1}
+        control={control}
+        register={register}
+        errors={errors}
+      />
 
       <Card>
         <CardHeader title="Mould and bars" />
@@ -539,6 +468,144 @@ function Row({
         ) : null}
       </div>
     </div>
+  )
+}
+
+type ItemList = 'fragrances' | 'additives' | 'packaging'
+type ItemAmount = 'pct' | 'gPerKg' | 'qtyPerBar'
+
+/**
+ * A card of fragrance, additive or packaging lines: each an ingredient and its amount, removable,
+ * and a button that adds an empty line (`newAmount` its starting amount). `below` adds something
+ * under a line (the fragrance's usage check).
+ */
+function ItemSection({
+  list,
+  amount,
+  noun,
+  amountLabel,
+  title,
+  description,
+  empty,
+  options,
+  placeholder,
+  addLabel,
+  newAmount,
+  control,
+  register,
+  errors,
+  below,
+}: {
+  list: ItemList
+  amount: ItemAmount
+  noun: string
+  amountLabel: string
+  title: string
+  description: string
+  empty?: string
+  options: RecipeIngredientOption[]
+  placeholder: string
+  addLabel: string
+  newAmount: number
+  control: Control<Values>
+  register: UseFormRegister<Values>
+  errors: FieldErrors<Values>
+  below?: (index: number) => ReactNode
+}) {
+  const rows = useFieldArray({ control, name: list })
+  const rowErrors = errors[list] as
+    | ({ ingredientId?: { message?: string } } & Partial<Record<ItemAmount, { message?: string }>>)[]
+    | undefined
+  return (
+    <Card>
+      <CardHeader title={title} description={description} />
+      <CardBody className="flex flex-col gap-3">
+        {rows.fields.length === 0 && empty ? <p className="text-sm text-ink-600">{empty}</p> : null}
+        {rows.fields.map((row, i) => {
+          const line = (
+            <ItemRow
+              list={list}
+              amount={amount}
+              noun={noun}
+              index={i}
+              amountLabel={amountLabel}
+              register={register}
+              options={options}
+              placeholder={placeholder}
+              errors={[rowErrors?.[i]?.ingredientId?.message, rowErrors?.[i]?.[amount]?.message]}
+              onRemove={() => rows.remove(i)}
+            />
+          )
+          return below ? (
+            <div key={row.id} className="flex flex-col gap-1">
+              {line}
+              {below(i)}
+            </div>
+          ) : (
+            <Fragment key={row.id}>{line}</Fragment>
+          )
+        })}
+        <div>
+          <Button
+            variant="secondary"
+            size="sm"
+            onClick={() =>
+              rows.append({ ingredientId: undefined as unknown as number, [amount]: newAmount } as never)
+            }
+          >
+            {addLabel}
+          </Button>
+        </div>
+      </CardBody>
+    </Card>
+  )
+}
+
+/**
+ * One fragrance, additive or packaging line: the ingredient and its amount, with a remove button.
+ * Labels number the rows ("Fragrance 2", "Fragrance 2 (% of oils)", "Remove fragrance 2").
+ */
+function ItemRow({
+  list,
+  amount,
+  noun,
+  index,
+  amountLabel,
+  register,
+  options,
+  placeholder,
+  errors: [ingredientError, amountError],
+  onRemove,
+}: {
+  list: ItemList
+  amount: ItemAmount
+  noun: string
+  index: number
+  amountLabel: string
+  register: UseFormRegister<Values>
+  options: RecipeIngredientOption[]
+  placeholder: string
+  errors: [string | undefined, string | undefined]
+  onRemove: () => void
+}) {
+  const n = index + 1
+  return (
+    <Row onRemove={onRemove} removeLabel={`Remove ${noun.toLowerCase()} ${n}`}>
+      <IngredientSelect
+        label={`${noun} ${n}`}
+        name={`${list}.${index}.ingredientId` as FieldPath<Values>}
+        register={register}
+        options={options}
+        placeholder={placeholder}
+        error={ingredientError}
+      />
+      <NumberField
+        label={`${noun} ${n} (${amountLabel})`}
+        name={`${list}.${index}.${amount}` as FieldPath<Values>}
+        register={register}
+        error={amountError}
+      />
+    </Row>
   )
 }
 

@@ -5,4 +5,7 @@ import { api } from '@/lib/api-client'
 export const myShopKeys = { all: ['my-shop'] as const }
 
 export const useMyShop = () =>
-  useQuery({ queryKey: myShopKeys.all, queryFn: async () => (await api<{ shop: ShopSummary }>('/shops/mine')).shop })
+  useQuery({
+    queryKey: myShopKeys.all,
+    queryFn: async () => (await api<{ shop: ShopSummary }>('/shops/mine')).shop,
+  })

@@ -1,17 +1,11 @@
 import { useState } from 'react'
-import type { FormEvent } from 'react'
-import { formatDate, isValidIsoDate } from '@shared/domain/dates/dates'
-import { CERTIFICATE_ACCEPT, CERTIFICATE_MAX_BYTES } from '@shared/schemas/shops'
+import { formatDate } from '@shared/domain/dates/dates'
 import type { ShopSummary } from '@shared/schemas/shops'
+import { CertificateUploadDialog } from '@/components/certificates/certificate-upload-dialog'
 import { Badge } from '@/components/ui/badge'
 import { Button, buttonClasses } from '@/components/ui/button'
 import { Card, CardBody, CardHeader } from '@/components/ui/card'
-import { Dialog } from '@/components/ui/dialog'
-import { Field, Input } from '@/components/ui/field'
-import { FormError } from '@/components/ui/form-error'
-import { toast } from '@/components/ui/toast'
 import { MY_CERTIFICATE_URL, useRenewMyCertificate } from '@/features/shop-account/api/my-certificate'
-import { ApiError } from '@/lib/api-client'
 
 function statusLine(shop: ShopSummary) {
   switch (shop.certificateStatus) {
@@ -76,81 +70,18 @@ export function MyCertificateCard({ shop }: { shop: ShopSummary }) {
 
 function RenewDialog({ open, onClose }: { open: boolean; onClose: () => void }) {
   const renew = useRenewMyCertificate()
-  const [file, setFile] = useState<File | null>(null)
-  const [expiresOn, setExpiresOn] = useState('')
-  const [errors, setErrors] = useState<{
-    certificate?: string
-    certificateExpiresOn?: string
-    form?: string
-  }>({})
-
-  const close = () => {
-    setFile(null)
-    setExpiresOn('')
-    setErrors({})
-    onClose()
-  }
-  const submit = async (event: FormEvent) => {
-    event.preventDefault()
-    const next: typeof errors = {}
-    if (!file) next.certificate = 'Choose the certificate file (PDF, JPEG or PNG).'
-    else if (file.size === 0) next.certificate = 'The file is empty.'
-    else if (file.size > CERTIFICATE_MAX_BYTES) next.certificate = 'The certificate is larger than 5 MB.'
-    if (expiresOn && !isValidIsoDate(expiresOn)) next.certificateExpiresOn = 'Enter a date as YYYY-MM-DD.'
-    setErrors(next)
-    if (Object.keys(next).length > 0 || !file) return
-    try {
-      await renew.mutateAsync({ file, expiresOn })
-      toast.success('Thank you: the studio has your renewed certificate.')
-      close()
-    } catch (err) {
-      const found: typeof errors = {}
-      if (err instanceof ApiError) {
-        for (const d of err.fieldErrors)
-          if (d.field === 'certificate' || d.field === 'certificateExpiresOn') found[d.field] = d.message
-        if (Object.keys(found).length === 0) found.form = err.message
-      } else found.form = 'The upload did not work. Please try again.'
-      setErrors(found)
-    }
-  }
-
   return (
-    <Dialog
+    <CertificateUploadDialog
       open={open}
-      onClose={close}
+      onClose={onClose}
+      upload={renew.mutateAsync}
+      pending={renew.isPending}
+      formId="renew-certificate-form"
       title="Upload a renewed certificate"
       description="It replaces the one on file; the studio checks it."
-      dismissible={!renew.isPending}
-      footer={
-        <>
-          <Button variant="secondary" onClick={close} disabled={renew.isPending}>
-            Cancel
-          </Button>
-          <Button type="submit" form="renew-certificate-form" loading={renew.isPending}>
-            Upload
-          </Button>
-        </>
-      }
-    >
-      <form id="renew-certificate-form" onSubmit={submit} noValidate className="flex flex-col gap-4">
-        {errors.form ? <FormError message={errors.form} /> : null}
-        <Field label="Certificate file" hint="PDF, JPEG or PNG, up to 5 MB" error={errors.certificate}>
-          <Input
-            type="file"
-            accept={CERTIFICATE_ACCEPT}
-            className="h-auto py-1.5"
-            onChange={(e) => setFile(e.target.files?.[0] ?? null)}
-          />
-        </Field>
-        <Field
-          label="Valid until"
-          optional
-          hint="As printed on the certificate"
-          error={errors.certificateExpiresOn}
-        >
-          <Input type="date" value={expiresOn} onChange={(e) => setExpiresOn(e.target.value)} />
-        </Field>
-      </form>
-    </Dialog>
+      submitLabel="Upload"
+      successMessage="Thank you: the studio has your renewed certificate."
+      expiresHint="As printed on the certificate"
+    />
   )
 }

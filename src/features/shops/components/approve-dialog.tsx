@@ -2,14 +2,15 @@ import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
 import type { z } from 'zod'
-import { ApproveShopSchema, PAYMENT_TERMS, PAYMENT_TERMS_LABELS } from '@shared/schemas/shops'
+import { ApproveShopSchema } from '@shared/schemas/shops'
 import type { ApproveShopInput, ShopAccount } from '@shared/schemas/shops'
 import { Button } from '@/components/ui/button'
 import { Dialog } from '@/components/ui/dialog'
-import { Field, Input, Select } from '@/components/ui/field'
+import { Field, Input } from '@/components/ui/field'
 import { FormError } from '@/components/ui/form-error'
 import { toast } from '@/components/ui/toast'
 import { useApproveShop, useTierOptions } from '@/features/shops/api/accounts'
+import { TermsFields } from '@/features/shops/components/terms-fields'
 import { applyApiErrors } from '@/lib/form-errors'
 
 type FormIn = z.input<typeof ApproveShopSchema>
@@ -84,25 +85,12 @@ export function ApproveDialog({
       <form id="approve-form" onSubmit={submit} noValidate className="flex flex-col gap-4">
         {formError ? <FormError message={formError} /> : null}
         <div className="grid gap-4 sm:grid-cols-2">
-          <Field label="Price tier" error={errors.tierId?.message}>
-            <Select {...form.register('tierId')} disabled={tiers.isPending}>
-              <option value="">{tiers.isPending ? 'Loading tiers…' : 'Choose a tier…'}</option>
-              {(tiers.data ?? []).map((t) => (
-                <option key={t.id} value={t.id}>
-                  {t.name}
-                </option>
-              ))}
-            </Select>
-          </Field>
-          <Field label="Payment terms" error={errors.paymentTerms?.message}>
-            <Select {...form.register('paymentTerms')}>
-              {PAYMENT_TERMS.map((t) => (
-                <option key={t} value={t}>
-                  {PAYMENT_TERMS_LABELS[t]}
-                </option>
-              ))}
-            </Select>
-          </Field>
+          <TermsFields
+            register={form.register}
+            errors={errors}
+            tiers={tiers.data ?? []}
+            loading={tiers.isPending}
+          />
         </div>
         <Field
           label="Certificate valid until"

@@ -2,7 +2,7 @@ import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
 import type { z } from 'zod'
-import { PAYMENT_TERMS, PAYMENT_TERMS_LABELS, STORE_TYPES, ShopUpdateSchema } from '@shared/schemas/shops'
+import { STORE_TYPES, ShopUpdateSchema } from '@shared/schemas/shops'
 import type { ShopAccount, ShopUpdateInput } from '@shared/schemas/shops'
 import { Button } from '@/components/ui/button'
 import { Dialog } from '@/components/ui/dialog'
@@ -11,6 +11,7 @@ import { FormError } from '@/components/ui/form-error'
 import { toast } from '@/components/ui/toast'
 import { useTierOptions, useUpdateShop } from '@/features/shops/api/accounts'
 import { ADDRESS_FIELD_NAMES, AddressFields } from '@/features/shops/components/address-fields'
+import { TermsFields } from '@/features/shops/components/terms-fields'
 import { applyApiErrors } from '@/lib/form-errors'
 
 type FormIn = z.input<typeof ShopUpdateSchema>
@@ -116,25 +117,7 @@ export function EditAccountDialog({
         {isOpen ? (
           <fieldset className="grid gap-4 sm:grid-cols-2">
             <legend className="mb-1 text-base font-medium text-ink-900">Terms</legend>
-            <Field label="Price tier" error={errors.tierId?.message}>
-              <Select {...form.register('tierId')}>
-                <option value="">Choose a tier…</option>
-                {(tiers.data ?? []).map((t) => (
-                  <option key={t.id} value={t.id}>
-                    {t.name}
-                  </option>
-                ))}
-              </Select>
-            </Field>
-            <Field label="Payment terms" error={errors.paymentTerms?.message}>
-              <Select {...form.register('paymentTerms')}>
-                {PAYMENT_TERMS.map((t) => (
-                  <option key={t} value={t}>
-                    {PAYMENT_TERMS_LABELS[t]}
-                  </option>
-                ))}
-              </Select>
-            </Field>
+            <TermsFields register={form.register} errors={errors} tiers={tiers.data ?? []} />
           </fieldset>
         ) : null}
         <fieldset className="grid gap-4 sm:grid-cols-2">

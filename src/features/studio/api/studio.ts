@@ -11,13 +11,24 @@ export const studioKeys = {
   shops: () => [...studioKeys.all, 'shops'] as const,
 }
 
+type StudioPublic = { studio: Settings['studio']; currency: string }
+
 export const studioProfileQuery = () =>
   queryOptions({
     queryKey: studioKeys.profile(),
-    queryFn: async () => (await api<{ studio: Settings['studio'] }>('/studio')).studio,
+    queryFn: () => api<StudioPublic>('/studio'),
+    select: (r: StudioPublic) => r.studio,
     staleTime: 5 * 60_000,
   })
 export const useStudioProfile = () => useQuery(studioProfileQuery())
+
+/**
+ * The studio's currency (ISO 4217) for amounts a list gives without one, for every role (the
+ * settings themselves are the owner's). USD, the settings' default, until it has loaded.
+ */
+export function useStudioCurrency(): string {
+  return useQuery({ ...studioProfileQuery(), select: (r: StudioPublic) => r.currency }).data ?? 'USD'
+}
 
 export const useSettings = () =>
   useQuery({
