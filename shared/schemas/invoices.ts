@@ -28,7 +28,8 @@ export const InvoiceIdParamsSchema = z.object({
   id: z.coerce
     .number<string | number>({ error: 'Not an invoice.' })
     .int('Not an invoice.')
-    .positive('Not an invoice.'),
+    .positive('Not an invoice.')
+    .max(2_147_483_647, 'Not an invoice.'),
 })
 
 const list = (v: unknown) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v)

@@ -133,7 +133,8 @@ export const OrderIdParamsSchema = z.object({
   id: z.coerce
     .number({ error: 'Not an order number.' })
     .int('Not an order number.')
-    .positive('Not an order number.'),
+    .positive('Not an order number.')
+    .max(2_147_483_647, 'Not an order number.'),
 })
 
 const idList = (v: unknown) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v)
@@ -198,7 +199,11 @@ export const CartLineInputSchema = z.object({
 export type CartLineInput = z.input<typeof CartLineInputSchema>
 
 export const CartProductParamsSchema = z.object({
-  productId: z.coerce.number({ error: 'Not a product.' }).int('Not a product.').positive('Not a product.'),
+  productId: z.coerce
+    .number({ error: 'Not a product.' })
+    .int('Not a product.')
+    .positive('Not a product.')
+    .max(2_147_483_647, 'Not a product.'),
 })
 
 export type PriceBreakDto = { minCases: number; unitPriceCents: number }

@@ -21,7 +21,7 @@ export const UpdateUserSchema = z.object({
 })
 export type UpdateUserInput = z.infer<typeof UpdateUserSchema>
 
-export const UserIdParamsSchema = z.object({ id: z.coerce.number().int().positive() })
+export const UserIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
 
 export type UserRow = {
   id: number

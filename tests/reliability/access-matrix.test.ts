@@ -20,7 +20,8 @@ const table = routeTable(app)
 const BUYER_FORBIDDEN = /cost|margin/i
 const PACKER_FORBIDDEN = /price|cost|cents|margin|tax(?!Id)|amount|^total$|^subtotal$|paid|balance/i
 /** A list's `total` beside its `items` is how many there are, not money. */
-const isListCount = (body: unknown, key: string) => key === '.total' && Array.isArray((body as { items?: unknown })?.items)
+const isListCount = (body: unknown, key: string) =>
+  key === '.total' && Array.isArray((body as { items?: unknown })?.items)
 
 const WHO: Record<Exclude<Caller, 'anon'>, DemoCaller> = {
   buyerA: 'buyerA',
@@ -109,7 +110,9 @@ describe('the access matrix', () => {
         const got = outcomeOf(route.method, r.status)
         const want = entry.access[caller]
         if (got !== want)
-          mismatches.push(`${route.key} as ${caller}: expected ${want}, got ${r.status} ${JSON.stringify(r.body).slice(0, 160)}`)
+          mismatches.push(
+            `${route.key} as ${caller}: expected ${want}, got ${r.status} ${JSON.stringify(r.body).slice(0, 160)}`,
+          )
         if (r.status >= 400 && r.status < 500 && r.type === 'application/json') {
           // Every refusal keeps the contract's shape.
           if (typeof r.body?.error?.code !== 'string' || typeof r.body?.error?.message !== 'string')
@@ -117,18 +120,23 @@ describe('the access matrix', () => {
         }
         if (caller === 'buyerB' || caller === 'anon') {
           const text = r.type === 'application/json' ? JSON.stringify(r.body) : (r.text ?? '')
-          for (const m of markers) if (text.includes(m)) leaks.push(`${route.key} as ${caller}: shows shop A's "${m}"`)
+          for (const m of markers)
+            if (text.includes(m)) leaks.push(`${route.key} as ${caller}: shows shop A's "${m}"`)
         }
-        const forbidden = caller === 'packer' ? PACKER_FORBIDDEN : caller.startsWith('buyer') ? BUYER_FORBIDDEN : null
+        const forbidden =
+          caller === 'packer' ? PACKER_FORBIDDEN : caller.startsWith('buyer') ? BUYER_FORBIDDEN : null
         if (caller === 'owner' && r.type === 'application/json')
           ownerCostKeys += keysOf(r.body).filter((k) => BUYER_FORBIDDEN.test(k.split('.').at(-1)!)).length
         if (forbidden && r.status < 300 && r.type === 'application/json') {
           for (const k of keysOf(r.body))
-            if (forbidden.test(k.split('.').at(-1)!) && !isListCount(r.body, k)) leaks.push(`${route.key} as ${caller}: ${k}`)
+            if (forbidden.test(k.split('.').at(-1)!) && !isListCount(r.body, k))
+              leaks.push(`${route.key} as ${caller}: ${k}`)
         }
       }
     }
-    console.info(`access matrix: ${table.length} routes × ${order.length} callers = ${calls} calls (${table.filter((r) => WRITE_METHODS.has(r.method)).length} write routes)`)
+    console.info(
+      `access matrix: ${table.length} routes × ${order.length} callers = ${calls} calls (${table.filter((r) => WRITE_METHODS.has(r.method)).length} write routes)`,
+    )
     expect(mismatches).toEqual([])
     expect(leaks).toEqual([])
     expect(ownerCostKeys).toBeGreaterThan(10)

@@ -57,7 +57,10 @@ export const ACCESS_MATRIX: Record<string, MatrixEntry> = {
   'GET /api/auth/csrf': PUBLIC,
   'GET /api/auth/me': EVERYONE_SIGNED_IN,
   'POST /api/auth/login': PUBLIC,
-  'POST /api/auth/logout': r('ok ok ok ok ok', { fresh: true, fuzz: { skip: 'ends the session of the caller' } }),
+  'POST /api/auth/logout': r('ok ok ok ok ok', {
+    fresh: true,
+    fuzz: { skip: 'ends the session of the caller' },
+  }),
   'POST /api/auth/password-reset': PUBLIC,
   'GET /api/auth/tokens/:token': PUBLIC,
   'POST /api/auth/set-password': PUBLIC,

@@ -59,12 +59,17 @@ export async function ledgerProblems(db: Db): Promise<string[]> {
     problems.push(`batch ${d.batchId}: stock ${d.free}/${d.reserved}, moves ${d.mf}/${d.mr}`)
   const alloc = await rows<{ batchId: number; allocated: number; reserved: number }>(
     db,
-    `SELECT a.batch_id AS "batchId", SUM(a.bars)::int AS allocated, COALESCE(s.reserved, 0) AS reserved
-       FROM allocations a LEFT JOIN batch_stock s ON s.batch_id = a.batch_id
-      GROUP BY a.batch_id, s.reserved HAVING SUM(a.bars) > COALESCE(s.reserved, 0)`,
+    // Every reserved bar is held by a live allocation and the other way round. A shipped order
+    // keeps its allocations (they name the lots that left), without reserved bars.
+    `SELECT s.batch_id AS "batchId", COALESCE(x.allocated, 0)::int AS allocated, s.reserved
+       FROM batch_stock s
+       LEFT JOIN (SELECT a.batch_id, SUM(a.bars) AS allocated
+                    FROM allocations a JOIN order_lines l ON l.id = a.order_line_id JOIN orders o ON o.id = l.order_id
+                   WHERE o.status NOT IN ('shipped', 'cancelled') GROUP BY a.batch_id) x ON x.batch_id = s.batch_id
+      WHERE s.reserved <> COALESCE(x.allocated, 0)`,
   )
   for (const a of alloc)
-    problems.push(`batch ${a.batchId}: ${a.allocated} bars allocated, only ${a.reserved} reserved`)
+    problems.push(`batch ${a.batchId}: ${a.allocated} bars allocated, ${a.reserved} reserved`)
   const oversold = await rows<{ batchId: number; made: number; out: number }>(
     db,
     `SELECT batch_id AS "batchId",
@@ -80,12 +85,14 @@ export async function ledgerProblems(db: Db): Promise<string[]> {
        FROM order_lines l JOIN allocations a ON a.order_line_id = l.id
       GROUP BY l.id, l.bars HAVING SUM(a.bars) > l.bars`,
   )
-  for (const o of overLine) problems.push(`order line ${o.lineId}: ${o.allocated} bars allocated for ${o.bars}`)
+  for (const o of overLine)
+    problems.push(`order line ${o.lineId}: ${o.allocated} bars allocated for ${o.bars}`)
   const cancelledHolding = await rows<{ orderId: number; n: number }>(
     db,
     `SELECT o.id AS "orderId", count(a.*)::int AS n FROM orders o JOIN order_lines l ON l.order_id = o.id JOIN allocations a ON a.order_line_id = l.id
       WHERE o.status = 'cancelled' GROUP BY o.id`,
   )
-  for (const c of cancelledHolding) problems.push(`cancelled order ${c.orderId} still holds ${c.n} allocations`)
+  for (const c of cancelledHolding)
+    problems.push(`cancelled order ${c.orderId} still holds ${c.n} allocations`)
   return problems
 }

@@ -70,7 +70,9 @@ export async function shopARecords(owner: ApiClient): Promise<Records> {
     shopId: a.shopId,
     userId: a.buyerId,
     orderId: confirmed.orderId,
-    invoiceId: await first(`SELECT id FROM invoices WHERE order_id = $1 AND kind = 'invoice'`, [shipped.orderId]),
+    invoiceId: await first(`SELECT id FROM invoices WHERE order_id = $1 AND kind = 'invoice'`, [
+      shipped.orderId,
+    ]),
     productId: sellable.productId,
     tierId: await first(`SELECT tier_id AS id FROM shops WHERE id = $1`, [a.shopId]),
     recipeId: await first(`SELECT recipe_id AS id FROM products WHERE id = $1`, [sellable.productId]),
