@@ -12,6 +12,24 @@ declare module 'express-serve-static-core' {
   }
 }
 
+const NUL_MESSAGE = 'Remove the NUL character (\\u0000): it cannot be stored.'
+
+/**
+ * One detail per string holding a NUL character, at its field's path. PostgreSQL's text and jsonb
+ * cannot store one (the query fails), so no field may carry it, whatever its schema says.
+ */
+export function nulCharacterDetails(
+  value: unknown,
+  path: string[] = [],
+): { field: string; message: string }[] {
+  if (typeof value === 'string')
+    return value.includes('\u0000') ? [{ field: path.join('.'), message: NUL_MESSAGE }] : []
+  if (Array.isArray(value)) return value.flatMap((v, i) => nulCharacterDetails(v, [...path, String(i)]))
+  if (value && typeof value === 'object')
+    return Object.entries(value).flatMap(([k, v]) => nulCharacterDetails(v, [...path, k]))
+  return []
+}
+
 /**
  * Checks body, query and params against their schemas, reports every problem at once
  * (400 invalid_input with one detail per field), and hands the parsed values on in `req.valid`.
@@ -24,6 +42,11 @@ export function validate(schemas: Schemas): RequestHandler {
       const schema = schemas[part]
       if (!schema) continue
       const raw = part === 'body' ? (req.body ?? {}) : req[part]
+      const nul = nulCharacterDetails(raw)
+      if (nul.length > 0) {
+        details.push(...nul.map((d) => ({ ...d, field: part === 'body' ? d.field : `${part}.${d.field}` })))
+        continue
+      }
       const r = schema.safeParse(raw)
       if (r.success) valid[part] = r.data
       else
