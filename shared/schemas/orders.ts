@@ -149,6 +149,7 @@ export const OrderListQuerySchema = z
       .number({ error: 'Choose a shop.' })
       .int('Choose a shop.')
       .positive('Choose a shop.')
+      .max(2_147_483_647, 'Choose a shop.')
       .optional(),
     from: z.iso.date('Use a date like 2026-12-01.').optional(),
     to: z.iso.date('Use a date like 2026-12-31.').optional(),

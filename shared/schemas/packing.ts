@@ -35,7 +35,8 @@ export const PickListQuerySchema = z.object({
         z.coerce
           .number<string | number>({ error: 'Order ids are whole numbers.' })
           .int('Order ids are whole numbers.')
-          .positive('Order ids are whole numbers.'),
+          .positive('Order ids are whole numbers.')
+          .max(2_147_483_647, 'Order ids are whole numbers.'),
         { error: 'Choose at least one order.' },
       )
       .min(1, 'Choose at least one order.')
