@@ -2,7 +2,8 @@ import { defineConfig } from 'vitest/config'
 import react from '@vitejs/plugin-react'
 import { alias } from './vite.config'
 
-// Four projects: pure units, client components, API against a real PostgreSQL, and the
+// Five projects: pure units, client components, API against a real PostgreSQL, the
+// reliability suite (access matrix, hostile inputs, races, crash) against the same, and the
 // browser against the built app. The API and browser projects each start their own
 // PostgreSQL cluster and mail catcher on free loopback ports (tests/setup/services.ts).
 export default defineConfig({
@@ -38,6 +39,19 @@ export default defineConfig({
           setupFiles: ['tests/setup/api-db.ts', 'tests/setup/fail-on-console-error.ts'],
           testTimeout: 30_000,
           hookTimeout: 60_000,
+          pool: 'forks',
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'reliability',
+          environment: 'node',
+          include: ['tests/reliability/**/*.test.ts'],
+          globalSetup: ['tests/setup/services.ts'],
+          setupFiles: ['tests/setup/api-db.ts', 'tests/setup/fail-on-console-error.ts'],
+          testTimeout: 120_000,
+          hookTimeout: 120_000,
           pool: 'forks',
         },
       },

@@ -25,7 +25,9 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else if (h.type === 'entity.parse.failed') {
     e = new AppError(400, 'invalid_input', 'The request body is not valid JSON.')
   } else if (h.type === 'entity.too.large' || h.code === 'LIMIT_FILE_SIZE') {
-    e = new AppError(413, 'payload_too_large', 'The request is too large.')
+    // multer names the file's form field: say it, as every other refusal does.
+    const message = h.field ? 'The file is larger than this form takes.' : 'The request is too large.'
+    e = new AppError(413, 'payload_too_large', message, h.field ? [{ field: h.field, message }] : undefined)
   } else if (h.type === 'encoding.unsupported' || h.type === 'charset.unsupported') {
     e = new AppError(415, 'unsupported_media_type', 'The request body encoding is not supported.')
   } else if (typeof h.code === 'string' && h.code.startsWith('LIMIT_')) {

@@ -12,18 +12,41 @@ declare module 'express-serve-static-core' {
   }
 }
 
+const NUL_MESSAGE = 'Remove the NUL character (\\u0000): it cannot be stored.'
+
+/**
+ * One detail per string holding a NUL character, at its field's path. PostgreSQL's text and jsonb
+ * cannot store one (the query fails), so no field may carry it, whatever its schema says.
+ */
+export function nulCharacterDetails(
+  value: unknown,
+  path: string[] = [],
+): { field: string; message: string }[] {
+  if (typeof value === 'string')
+    return value.includes('\u0000') ? [{ field: path.join('.'), message: NUL_MESSAGE }] : []
+  if (Array.isArray(value)) return value.flatMap((v, i) => nulCharacterDetails(v, [...path, String(i)]))
+  if (value && typeof value === 'object')
+    return Object.entries(value).flatMap(([k, v]) => nulCharacterDetails(v, [...path, k]))
+  return []
+}
+
 /**
  * Checks body, query and params against their schemas, reports every problem at once
  * (400 invalid_input with one detail per field), and hands the parsed values on in `req.valid`.
  */
 export function validate(schemas: Schemas): RequestHandler {
-  return (req, _res, next) => {
+  const handler: RequestHandler = (req, _res, next) => {
     const details: { field: string; message: string }[] = []
     const valid: Request['valid'] = {}
     for (const part of ['params', 'query', 'body'] as const) {
       const schema = schemas[part]
       if (!schema) continue
       const raw = part === 'body' ? (req.body ?? {}) : req[part]
+      const nul = nulCharacterDetails(raw)
+      if (nul.length > 0) {
+        details.push(...nul.map((d) => ({ ...d, field: part === 'body' ? d.field : `${part}.${d.field}` })))
+        continue
+      }
       const r = schema.safeParse(raw)
       if (r.success) valid[part] = r.data
       else
@@ -47,6 +70,8 @@ export function validate(schemas: Schemas): RequestHandler {
     req.valid = valid
     next()
   }
+  // The schemas stay readable on the handler, so tests can derive inputs from the route table.
+  return Object.assign(handler, { schemas })
 }
 
 /** Typed access to what validate() parsed. */

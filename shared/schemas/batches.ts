@@ -63,7 +63,11 @@ const optionalText = (max: number) =>
     .transform((v) => (v ? v : null))
 
 export const BatchLotInputSchema = z.object({
-  ingredientLotId: z.coerce.number<string | number>().int().positive('Choose a lot.'),
+  ingredientLotId: z.coerce
+    .number<string | number>()
+    .int()
+    .positive('Choose a lot.')
+    .max(2_147_483_647, 'Choose a lot.'),
   quantity: z.coerce
     .number<string | number>({ error: 'Enter a quantity.' })
     .min(0, 'A quantity cannot be negative.')
@@ -188,7 +192,10 @@ function checkMove(
 
 /** A write-off (bars > 0 lost) or a count correction (signed, not 0) on one batch, with its reason. */
 export const StockMoveSchema = z
-  .object({ batchId: z.coerce.number<string | number>().int().positive(), ...stockMoveFields })
+  .object({
+    batchId: z.coerce.number<string | number>().int().positive().max(2_147_483_647),
+    ...stockMoveFields,
+  })
   .superRefine(checkMove)
 export type StockMoveInput = z.infer<typeof StockMoveSchema>
 

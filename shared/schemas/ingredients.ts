@@ -463,6 +463,7 @@ export const PurchaseListQuerySchema = z
       .number({ error: 'Choose an ingredient.' })
       .int()
       .positive('Choose an ingredient.')
+      .max(2_147_483_647, 'Choose an ingredient.')
       .optional(),
     from: z.string().refine(isValidIsoDate, 'Use a date like 2026-11-30.').optional(),
     to: z.string().refine(isValidIsoDate, 'Use a date like 2026-11-30.').optional(),

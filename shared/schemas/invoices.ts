@@ -28,7 +28,8 @@ export const InvoiceIdParamsSchema = z.object({
   id: z.coerce
     .number<string | number>({ error: 'Not an invoice.' })
     .int('Not an invoice.')
-    .positive('Not an invoice.'),
+    .positive('Not an invoice.')
+    .max(2_147_483_647, 'Not an invoice.'),
 })
 
 const list = (v: unknown) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v)
@@ -45,6 +46,7 @@ export const InvoiceListQuerySchema = z
       .number<string | number>({ error: 'Choose a shop.' })
       .int('Choose a shop.')
       .positive('Choose a shop.')
+      .max(2_147_483_647, 'Choose a shop.')
       .optional(),
     from: isoDate('2026-12-01').optional(),
     to: isoDate('2026-12-31').optional(),

@@ -140,7 +140,8 @@ export const OrderIdParamsSchema = z.object({
   id: z.coerce
     .number({ error: 'Not an order number.' })
     .int('Not an order number.')
-    .positive('Not an order number.'),
+    .positive('Not an order number.')
+    .max(2_147_483_647, 'Not an order number.'),
 })
 
 const idList = (v: unknown) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v)
@@ -155,6 +156,7 @@ export const OrderListQuerySchema = z
       .number({ error: 'Choose a shop.' })
       .int('Choose a shop.')
       .positive('Choose a shop.')
+      .max(2_147_483_647, 'Choose a shop.')
       .optional(),
     from: z.iso.date('Use a date like 2026-12-01.').optional(),
     to: z.iso.date('Use a date like 2026-12-31.').optional(),
@@ -205,7 +207,11 @@ export const CartLineInputSchema = z.object({
 export type CartLineInput = z.input<typeof CartLineInputSchema>
 
 export const CartProductParamsSchema = z.object({
-  productId: z.coerce.number({ error: 'Not a product.' }).int('Not a product.').positive('Not a product.'),
+  productId: z.coerce
+    .number({ error: 'Not a product.' })
+    .int('Not a product.')
+    .positive('Not a product.')
+    .max(2_147_483_647, 'Not a product.'),
 })
 
 export type PriceBreakDto = { minCases: number; unitPriceCents: number }

@@ -8,7 +8,8 @@ export const PackingOrderParamsSchema = z.object({
   id: z.coerce
     .number<string | number>({ error: 'Not an order number.' })
     .int('Not an order number.')
-    .positive('Not an order number.'),
+    .positive('Not an order number.')
+    .max(2_147_483_647, 'Not an order number.'),
 })
 
 /** `POST /api/orders/:id/claim`; an owner may take over an order another person has claimed. */
@@ -34,7 +35,8 @@ export const PickListQuerySchema = z.object({
         z.coerce
           .number<string | number>({ error: 'Order ids are whole numbers.' })
           .int('Order ids are whole numbers.')
-          .positive('Order ids are whole numbers.'),
+          .positive('Order ids are whole numbers.')
+          .max(2_147_483_647, 'Order ids are whole numbers.'),
         { error: 'Choose at least one order.' },
       )
       .min(1, 'Choose at least one order.')

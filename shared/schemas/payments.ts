@@ -74,8 +74,18 @@ export type PaymentFormInput = z.input<typeof PaymentFormSchema>
 
 export const PaymentListQuerySchema = z
   .object({
-    shopId: z.coerce.number<string | number>().int().positive('Choose a shop.').optional(),
-    invoiceId: z.coerce.number<string | number>().int().positive('Choose an invoice.').optional(),
+    shopId: z.coerce
+      .number<string | number>()
+      .int()
+      .positive('Choose a shop.')
+      .max(2_147_483_647, 'Choose a shop.')
+      .optional(),
+    invoiceId: z.coerce
+      .number<string | number>()
+      .int()
+      .positive('Choose an invoice.')
+      .max(2_147_483_647, 'Choose an invoice.')
+      .optional(),
     method: z.enum(PAYMENT_METHODS, { error: 'Choose a known method.' }).optional(),
     from: z.string().trim().refine(isValidIsoDate, 'Use a date like 2026-12-01.').optional(),
     to: z.string().trim().refine(isValidIsoDate, 'Use a date like 2026-12-31.').optional(),

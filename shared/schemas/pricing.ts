@@ -23,7 +23,7 @@ export const TierCreateSchema = z.object(tierFields)
 export type TierCreateInput = z.output<typeof TierCreateSchema>
 export const TierUpdateSchema = z.object(tierFields).partial()
 export type TierUpdateInput = z.output<typeof TierUpdateSchema>
-export const TierIdParamsSchema = z.object({ id: z.coerce.number().int().positive() })
+export const TierIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
 
 export type TierRow = {
   id: number
@@ -73,8 +73,8 @@ export const PriceBreaksSchema = z
 export type PriceBreaksInput = z.output<typeof PriceBreaksSchema>
 
 export const PricingParamsSchema = z.object({
-  productId: z.coerce.number().int().positive(),
-  tierId: z.coerce.number().int().positive(),
+  productId: z.coerce.number().int().positive().max(2_147_483_647),
+  tierId: z.coerce.number().int().positive().max(2_147_483_647),
 })
 
 export const AcceptSuggestionsSchema = z

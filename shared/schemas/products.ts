@@ -108,7 +108,7 @@ export const ProductUpdateSchema = z
 export type ProductUpdateInput = z.output<typeof ProductUpdateSchema>
 export const NET_OVER_CUT_MESSAGE = NET_OVER_CUT
 
-export const ProductIdParamsSchema = z.object({ id: z.coerce.number().int().positive() })
+export const ProductIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
 
 export const DeclarationConfirmSchema = z.object({
   text: z

@@ -135,7 +135,7 @@ export const RecipeInputSchema = z
 export type RecipeInput = z.output<typeof RecipeInputSchema>
 export type RecipeFormValues = z.input<typeof RecipeInputSchema>
 
-export const RecipeIdParamsSchema = z.object({ id: z.coerce.number().int().positive() })
+export const RecipeIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
 
 export const RecipeListQuerySchema = z.object({
   archived: z

@@ -301,7 +301,7 @@ export type InviteBuyerInput = z.output<typeof InviteBuyerSchema>
 export const CertificateFieldsSchema = z.object({ certificateExpiresOn: OptionalDateSchema.optional() })
 export type CertificateFieldsInput = z.output<typeof CertificateFieldsSchema>
 
-export const ShopIdParamsSchema = z.object({ id: z.coerce.number().int().positive() })
+export const ShopIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
 export const ShopListQuerySchema = z.object({
   status: z.enum(SHOP_STATUSES, { error: `Use one of: ${SHOP_STATUSES.join(', ')}.` }).optional(),
 })

@@ -7,7 +7,7 @@ export const InviteUserSchema = z
     email: EmailSchema,
     name: z.string().trim().min(1, 'Enter a name.').max(120, 'At most 120 characters.'),
     role: z.enum(ROLES, { error: 'Choose a role.' }),
-    shopId: z.coerce.number<string | number>().int().positive().nullish(),
+    shopId: z.coerce.number<string | number>().int().positive().max(2_147_483_647).nullish(),
   })
   .refine((v) => v.role !== 'buyer' || !!v.shopId, {
     path: ['shopId'],
@@ -21,7 +21,7 @@ export const UpdateUserSchema = z.object({
 })
 export type UpdateUserInput = z.infer<typeof UpdateUserSchema>
 
-export const UserIdParamsSchema = z.object({ id: z.coerce.number().int().positive() })
+export const UserIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
 
 export type UserRow = {
   id: number

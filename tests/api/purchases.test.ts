@@ -526,6 +526,7 @@ describe('CSV import', () => {
       .set('X-CSRF-Token', token)
       .attach('file', Buffer.alloc(1024 * 1024 + 1, 0x61), { filename: 'big.csv', contentType: 'text/csv' })
     expect(big.status).toBe(413)
+    expect(fields(big.body)).toEqual(['file'])
     const none = await owner.post('/api/purchases/import/preview', {})
     expect(none.status).toBe(400)
     expect(fields(none.body)).toEqual(['file'])

@@ -8,6 +8,7 @@ import type { CertificateContentType } from '@shared/schemas/shops'
 import { issuesToDetails } from '@shared/schemas/errors'
 import type { ErrorDetail } from '@shared/schemas/errors'
 import { AppError } from '@server/lib/app-error'
+import { nulCharacterDetails } from '@server/middlewares/validate'
 
 /** A checked certificate, ready to be stored in `uploads`. */
 export type CertificateUpload = {
@@ -179,8 +180,9 @@ declare module 'express-serve-static-core' {
  */
 export function validateWithCertificate(schema: z.ZodType, opts: { required: boolean }): RequestHandler {
   return (req, _res, next) => {
+    const nul = nulCharacterDetails(req.body ?? {})
     const parsed = schema.safeParse(req.body ?? {})
-    const details = parsed.success ? [] : issuesToDetails(parsed.error.issues)
+    const details = nul.length > 0 ? nul : parsed.success ? [] : issuesToDetails(parsed.error.issues)
     const { upload: file, problems } = checkCertificate(req.file, opts.required)
     details.push(...problems)
     if (details.length > 0) {
