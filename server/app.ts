@@ -13,6 +13,7 @@ import { applicationsRoutes } from '@server/modules/applications/applications.ro
 import type { ApplicationLimits } from '@server/modules/applications/applications.routes'
 import { authRoutes } from '@server/modules/auth/auth.routes'
 import { batchesRoutes } from '@server/modules/batches/batches.routes'
+import { benchRoutes } from '@server/modules/bench/bench.routes'
 import { createPassport } from '@server/modules/auth/passport'
 import { batchSheetRoutes } from '@server/modules/batch-sheet/batch-sheet.routes'
 import { cartRoutes } from '@server/modules/cart/cart.routes'
@@ -130,6 +131,8 @@ export function createApp(opts: AppOptions = {}) {
   api.use('/orders.csv', ordersCsvRoutes())
   api.use('/orders', ordersRoutes())
   api.use(notFound)
+  // The benchmark's bare baselines, beside the API and outside its session (LC_BENCH=1 only).
+  if (env.LC_BENCH) app.use('/api/bench', benchRoutes())
   app.use('/api', api)
 
   if (opts.serveClient && fs.existsSync(path.join(CLIENT_DIR, 'index.html'))) {

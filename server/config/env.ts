@@ -25,6 +25,8 @@ const EnvSchema = z
     LOGIN_MAX_FAILURES: z.coerce.number().int().min(1).default(8),
     LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
     JOBS: bool.default(true),
+    /** Mounts the benchmark's bare baselines under /api/bench (npm run bench only; never in a normal run). */
+    LC_BENCH: bool.default(false),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
