@@ -27,17 +27,6 @@ export function pairedRatio(app: readonly number[], bare: readonly number[]): nu
   return median(app.map((a, i) => (bare[i] === 0 ? 0 : a / bare[i]!)))
 }
 
-/**
- * The value of the p-th percentile (0–100) by the nearest-rank method
- * (NIST/SEMATECH e-Handbook of Statistical Methods, 7.2.6.2 "Percentiles": rank = ⌈p/100 × n⌉).
- */
-export function percentile(values: readonly number[], p: number): number {
-  if (values.length === 0) throw new Error('percentile of nothing')
-  const s = [...values].sort((a, b) => a - b)
-  const rank = Math.max(1, Math.ceil((p / 100) * s.length))
-  return s[Math.min(rank, s.length) - 1]!
-}
-
 export type Goal = {
   id: string
   label: string
