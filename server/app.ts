@@ -95,6 +95,9 @@ export function createApp(opts: AppOptions = {}) {
         tableName: 'sessions',
         createTableIfMissing: false,
         pruneSessionInterval: opts.pruneSessions === false ? false : 15 * 60,
+        // With rolling: false the browser's cookie expires a fixed time after sign-in, so moving
+        // the stored expiry on every request (an UPDATE per GET) bought nothing.
+        disableTouch: true,
       }),
       resave: false,
       saveUninitialized: false,

@@ -43,13 +43,21 @@ export type GoalResult = Goal & { met: boolean }
 export function checkGoal(goal: Goal): GoalResult {
   const met =
     Number.isFinite(goal.value) &&
-    (goal.kind === 'atLeast' ? goal.value >= goal.limit : goal.kind === 'under' ? goal.value < goal.limit : goal.value <= goal.limit)
+    (goal.kind === 'atLeast'
+      ? goal.value >= goal.limit
+      : goal.kind === 'under'
+        ? goal.value < goal.limit
+        : goal.value <= goal.limit)
   return { ...goal, met }
 }
 
 /** A plain-text table: the first row is the header; columns padded to the widest cell. */
 export function table(rows: readonly (readonly string[])[]): string {
   const widths = rows[0]!.map((_, c) => Math.max(...rows.map((r) => (r[c] ?? '').length)))
-  const line = (r: readonly string[]) => r.map((cell, c) => cell.padEnd(widths[c]!)).join('  ').trimEnd()
+  const line = (r: readonly string[]) =>
+    r
+      .map((cell, c) => cell.padEnd(widths[c]!))
+      .join('  ')
+      .trimEnd()
   return [line(rows[0]!), widths.map((w) => '-'.repeat(w)).join('  '), ...rows.slice(1).map(line)].join('\n')
 }

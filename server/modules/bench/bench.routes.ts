@@ -75,8 +75,16 @@ async function bareOrder(pool: pg.Pool, o: BareOrder): Promise<{ status: number;
       `INSERT INTO orders (number, year, seq, shop_id, placed_by, status, subtotal_cents, shipping_cents,
                            tax_cents, total_cents, weight_g, idempotency_key)
        VALUES ($1, $2, $3, $4, $5, 'placed', $6, 0, 0, $6, $7, $8) RETURNING id`,
-      [`O${String(year % 100).padStart(2, '0')}-${String(last).padStart(5, '0')}`, year, last, o.shopId, o.userId,
-        subtotal, weight, o.key],
+      [
+        `O${String(year % 100).padStart(2, '0')}-${String(last).padStart(5, '0')}`,
+        year,
+        last,
+        o.shopId,
+        o.userId,
+        subtotal,
+        weight,
+        o.key,
+      ],
     )
     const orderId = order.rows[0].id as number
     const lineIds: number[] = []
@@ -85,7 +93,18 @@ async function bareOrder(pool: pg.Pool, o: BareOrder): Promise<{ status: number;
         `INSERT INTO order_lines (order_id, product_id, sku, name, cases, case_pack, bars, unit_price_cents,
                                   line_total_cents, sort_order)
          VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10) RETURNING id`,
-        [orderId, l.productId, l.p.sku, l.p.name, l.cases, l.p.case_pack, l.bars, l.p.price, l.bars * l.p.price, l.sort],
+        [
+          orderId,
+          l.productId,
+          l.p.sku,
+          l.p.name,
+          l.cases,
+          l.p.case_pack,
+          l.bars,
+          l.p.price,
+          l.bars * l.p.price,
+          l.sort,
+        ],
       )
       lineIds.push(r.rows[0].id as number)
     }
@@ -103,7 +122,10 @@ async function bareOrder(pool: pg.Pool, o: BareOrder): Promise<{ status: number;
         [a.batchId, a.bars, -a.bars, orderId, lineId, o.userId],
       )
     }
-    await c.query('DELETE FROM cart_lines WHERE shop_id = $1 AND product_id = ANY($2::int[])', [o.shopId, ids])
+    await c.query('DELETE FROM cart_lines WHERE shop_id = $1 AND product_id = ANY($2::int[])', [
+      o.shopId,
+      ids,
+    ])
     await c.query(
       `INSERT INTO audit_events (user_id, action, entity, entity_id, data) VALUES ($1, 'order.placed', 'order', $2, $3)`,
       [o.userId, orderId, JSON.stringify({ number: last, totalCents: subtotal })],
@@ -133,7 +155,9 @@ export function benchRoutes() {
   })
   r.post('/order', express.json(), async (req, res) => {
     const out = await bareOrder(pool, req.body as BareOrder)
-    res.status(out.status).json(out.orderId ? { order: { id: out.orderId } } : { error: { code: 'insufficient_stock' } })
+    res
+      .status(out.status)
+      .json(out.orderId ? { order: { id: out.orderId } } : { error: { code: 'insufficient_stock' } })
   })
   r.get('/invoice-pdf/:id', async (req, res) => {
     const id = Number(req.params.id)

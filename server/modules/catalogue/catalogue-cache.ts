@@ -1,0 +1,33 @@
+import type { Transaction } from 'sequelize'
+
+// The buyer's catalogue is the same for every shop of a tier on a given studio day, and it is the
+// hottest read of the product, so it is kept per tier and day as the JSON body it answers with.
+// Whatever changes what it shows calls invalidateCatalogue: every ledger move (recordStockMove:
+// pours, reservations, releases, shipments, write-offs), price breaks, and products (details,
+// photo, on sale or not). Inside a transaction the cache is dropped when it commits, and a body
+// computed while a change was committing is not kept (the version it started from is gone).
+// One server process holds one cache; several processes behind a balancer would need a shared one.
+// This module imports nothing of the app, so any module may call it without an import cycle.
+
+let version = 0
+const bodies = new Map<string, { version: number; json: string }>()
+
+/** Drops every cached catalogue, at once or, inside a transaction, when it commits. */
+export function invalidateCatalogue(transaction?: Transaction | null) {
+  const drop = () => {
+    version++
+    bodies.clear()
+  }
+  if (transaction) transaction.afterCommit(drop)
+  else drop()
+}
+
+/** The cached body under `key`, or `make()`'s, kept only if nothing changed while it was made. */
+export async function cachedCatalogue(key: string, make: () => Promise<string>): Promise<string> {
+  const hit = bodies.get(key)
+  if (hit && hit.version === version) return hit.json
+  const started = version
+  const json = await make()
+  if (version === started) bodies.set(key, { version: started, json })
+  return json
+}
