@@ -562,11 +562,19 @@ async function main() {
         unit: 'ms',
       }),
       checkGoal({
-        id: 'client.ratio',
-        label: 'client initial load ÷ framework floor',
+        id: 'client.signIn',
+        label: 'sign-in page initial load ÷ framework floor',
         kind: 'within',
         limit: 1.6,
-        value: client.ratio,
+        value: client.signInRatio,
+        unit: '×',
+      }),
+      checkGoal({
+        id: 'client.catalogue',
+        label: 'catalogue page initial load ÷ framework floor',
+        kind: 'within',
+        limit: 1.6,
+        value: client.catalogueRatio,
         unit: '×',
       }),
       checkGoal({
@@ -651,21 +659,39 @@ async function main() {
       '< 30 ms',
       goals[6]!.met ? 'yes' : 'NO',
     ])
+    const floorKb = fmt(client.floorGzipBytes / 1024, 1)
+    const kb = (b: number) => fmt(b / 1024, 1)
     rows.push([
-      'client JS+CSS gzip (KB)',
-      fmt(client.initialGzipBytes / 1024, 1),
-      fmt(client.floorGzipBytes / 1024, 1),
-      fmt(client.ratio, 2),
+      'sign-in page JS+CSS gzip (KB)',
+      kb(client.signInGzipBytes),
+      floorKb,
+      fmt(client.signInRatio, 2),
       '≤ 1.6',
       goals[7]!.met ? 'yes' : 'NO',
     ])
     rows.push([
+      'catalogue page JS+CSS gzip (KB)',
+      kb(client.catalogueGzipBytes),
+      floorKb,
+      fmt(client.catalogueRatio, 2),
+      '≤ 1.6',
+      goals[8]!.met ? 'yes' : 'NO',
+    ])
+    rows.push([
+      'both pages together (KB)',
+      kb(client.initialGzipBytes),
+      floorKb,
+      fmt(client.ratio, 2),
+      '',
+      '',
+    ])
+    rows.push([
       'server peak RSS (MB)',
-      fmt(goals[8]!.value),
+      fmt(goals[9]!.value),
       '',
       '',
       '< 300 MB',
-      goals[8]!.met ? 'yes' : 'NO',
+      goals[9]!.met ? 'yes' : 'NO',
     ])
     console.log('\n' + table(rows) + '\n')
     console.log(`Stock check: ${JSON.stringify(verified)}`)
