@@ -297,13 +297,14 @@ async function benchInvoicePdf(base: string, owner: Session, invoiceId: number) 
 }
 
 async function benchOrderLists(base: string, history: Session, owner: Session, facts: ScenarioFacts) {
-  log('Order lists: a shop of 2,000 orders, page by page, and the owner’s filtered table; 10 connections')
+  log('Order lists: a shop of 2,000 orders, page by page, and the owner’s filtered table')
+  log('  (the goal: each call on its own, one connection; then one round at 10 connections, for information)')
   let i = 0
   const pages = Math.ceil(facts.counts.historyShopOrders! / 25)
-  const shopPaged = () =>
+  const shopPaged = (connections: number) =>
     cannon({
       url: base,
-      connections: 10,
+      connections,
       headers: { cookie: history.cookie },
       requests: [
         {
@@ -320,10 +321,10 @@ async function benchOrderLists(base: string, history: Session, owner: Session, f
     () => `q=PO-4${100 + (i % 900)}&page=1`,
     () => `page=${1 + (i % 200)}`,
   ]
-  const ownerTable = () =>
+  const ownerTable = (connections: number) =>
     cannon({
       url: base,
-      connections: 10,
+      connections,
       headers: { cookie: owner.cookie },
       requests: [
         {
@@ -344,8 +345,8 @@ async function benchOrderLists(base: string, history: Session, owner: Session, f
   const shop: Run[] = []
   const all: Run[] = []
   for (let r = 0; r < ROUNDS; r++) {
-    shop.push(await shopPaged())
-    all.push(await ownerTable())
+    shop.push(await shopPaged(1))
+    all.push(await ownerTable(1))
     log(
       `  round ${r + 1}: shop history p99 ${shop[r]!.p99} ms (${shop[r]!.okRps.toFixed(0)}/s) · owner table p99 ${all[r]!.p99} ms (${all[r]!.okRps.toFixed(0)}/s)`,
     )
@@ -356,7 +357,19 @@ async function benchOrderLists(base: string, history: Session, owner: Session, f
     perSecond: summarize(runs.map((r) => r.okRps)),
     non2xx: runs.reduce((s, r) => s + r.non2xx, 0),
   })
-  return { shopHistory: sum(shop), ownerTable: sum(all) }
+  const busyShop = await shopPaged(10)
+  const busyOwner = await ownerTable(10)
+  log(`  10 connections: shop history p99 ${busyShop.p99} ms · owner table p99 ${busyOwner.p99} ms`)
+  return {
+    shopHistory: sum(shop),
+    ownerTable: sum(all),
+    at10Connections: {
+      shopHistoryP99: busyShop.p99,
+      ownerTableP99: busyOwner.p99,
+      shopPerSecond: busyShop.okRps,
+      ownerPerSecond: busyOwner.okRps,
+    },
+  }
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -490,10 +503,19 @@ async function main() {
       })
       return
     }
-    const catalogue = await benchCatalogue(base, catalogueBuyer)
-    const lists = await benchOrderLists(base, history, owner, facts)
-    const pdf = await benchInvoicePdf(base, owner, facts.invoice40Id)
-    const orders = await benchOrders(base, orderBuyers, facts)
+    // The highest resident set seen during each part (sampled), to tell which part needs the memory.
+    const phasePeakMb: Record<string, number> = {}
+    const phase = async <T>(name: string, work: () => Promise<T>): Promise<T> => {
+      peakSampled = 0
+      const out = await work()
+      phasePeakMb[name] = Math.round(Math.max(peakSampled, memoryOf(pid)?.rssMb ?? 0))
+      return out
+    }
+    const catalogue = await phase('catalogue', () => benchCatalogue(base, catalogueBuyer))
+    const lists = await phase('orderLists', () => benchOrderLists(base, history, owner, facts))
+    const pdf = await phase('invoicePdf', () => benchInvoicePdf(base, owner, facts.invoice40Id))
+    const orders = await phase('orders', () => benchOrders(base, orderBuyers, facts))
+    peakSampled = Math.max(...Object.values(phasePeakMb))
     const verified = await verifyOrders(db.url, orders.acceptedApp, orders.acceptedBare)
     const mem = memoryOf(pid)
     clearInterval(sampler)
@@ -611,7 +633,11 @@ async function main() {
       invoicePdf: pdf,
       orderLists: lists,
       client,
-      memory: { vmHwmMb: mem?.peakMb ?? null, sampledPeakRssMb: peakSampled },
+      memory: {
+        vmHwmMb: mem?.peakMb ?? null,
+        sampledPeakRssMb: peakSampled,
+        sampledPeakByPartMb: phasePeakMb,
+      },
       goals,
       seconds: (Date.now() - started) / 1000,
     }

@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto'
 import type { Transaction } from 'sequelize'
 
 // The buyer's catalogue is the same for every shop of a tier on a given studio day, and it is the
@@ -9,8 +10,11 @@ import type { Transaction } from 'sequelize'
 // One server process holds one cache; several processes behind a balancer would need a shared one.
 // This module imports nothing of the app, so any module may call it without an import cycle.
 
+/** A body and its ETag (hashed once when the body is made, not on every answer). */
+export type CachedBody = { json: string; etag: string }
+
 let version = 0
-const bodies = new Map<string, { version: number; json: string }>()
+const bodies = new Map<string, CachedBody & { version: number }>()
 
 /** Drops every cached catalogue, at once or, inside a transaction, when it commits. */
 export function invalidateCatalogue(transaction?: Transaction | null) {
@@ -23,11 +27,12 @@ export function invalidateCatalogue(transaction?: Transaction | null) {
 }
 
 /** The cached body under `key`, or `make()`'s, kept only if nothing changed while it was made. */
-export async function cachedCatalogue(key: string, make: () => Promise<string>): Promise<string> {
+export async function cachedCatalogue(key: string, make: () => Promise<string>): Promise<CachedBody> {
   const hit = bodies.get(key)
-  if (hit && hit.version === version) return hit.json
+  if (hit && hit.version === version) return hit
   const started = version
   const json = await make()
-  if (version === started) bodies.set(key, { version: started, json })
-  return json
+  const body = { json, etag: `W/"${createHash('sha1').update(json).digest('base64url')}"` }
+  if (version === started) bodies.set(key, { version: started, ...body })
+  return body
 }

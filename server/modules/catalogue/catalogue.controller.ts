@@ -4,5 +4,7 @@ import { catalogueJsonForShop } from '@server/modules/catalogue/catalogue.servic
 
 /** The body is a `CatalogueDto`, cached per tier as JSON (catalogue.service.ts). */
 export async function list(req: Request, res: Response) {
-  res.type('application/json').send(await catalogueJsonForShop(buyerShopId(req)))
+  const body = await catalogueJsonForShop(buyerShopId(req))
+  // The ETag made with the body: Express would otherwise hash the whole body on every answer.
+  res.type('application/json').set('ETag', body.etag).send(body.json)
 }
