@@ -105,6 +105,20 @@ describe('the cached catalogue', () => {
     expect(await itemOf(buyerA, p.productId)).toEqual(before)
   })
 
+  it("shows a shop's new tier at once", async () => {
+    const me = await buyerB.get('/api/auth/me').expect(200)
+    const shopB = me.body.user.shopId as number
+    const tierA = await tierIdOf(buyerA)
+    const tierB = await tierIdOf(buyerB)
+    const id = await demoProduct('LAV')
+    const atA = (await itemOf(buyerA, id))?.priceBreaks
+    expect((await itemOf(buyerB, id))?.priceBreaks).not.toEqual(atA)
+    const moved = await owner.patch(`/api/shops/${shopB}`, { tierId: tierA })
+    expect(moved.status, JSON.stringify(moved.body)).toBe(200)
+    expect((await itemOf(buyerB, id))?.priceBreaks).toEqual(atA)
+    expect((await owner.patch(`/api/shops/${shopB}`, { tierId: tierB })).status).toBe(200)
+  })
+
   it('shows a renamed product at once and drops one taken off sale', async () => {
     const id = await demoProduct('HNY')
     const renamed = await owner.patch(`/api/products/${id}`, { name: 'Honey Oat, renamed' })

@@ -5,7 +5,7 @@ import type { Transaction } from 'sequelize'
 // hottest read of the product, so it is kept per tier and day as the JSON body it answers with.
 // Whatever changes what it shows calls invalidateCatalogue: every ledger move (recordStockMove:
 // pours, reservations, releases, shipments, write-offs), price breaks, and products (details,
-// photo, on sale or not). Inside a transaction the cache is dropped when it commits, and a body
+// photo, on sale or not) and a shop's tier. Inside a transaction the cache is dropped when it commits, and a body
 // computed while a change was committing is not kept (the version it started from is gone).
 // One server process holds one cache; several processes behind a balancer would need a shared one.
 // This module imports nothing of the app, so any module may call it without an import cycle.
@@ -15,12 +15,16 @@ export type CachedBody = { json: string; etag: string }
 
 let version = 0
 const bodies = new Map<string, CachedBody & { version: number }>()
+// Which tier each shop buys at (null: none yet); dropped with the bodies, so a tier change made
+// through the shops service (which calls invalidateCatalogue) shows at once.
+const shopTiers = new Map<number, { version: number; tierId: number | null }>()
 
 /** Drops every cached catalogue, at once or, inside a transaction, when it commits. */
 export function invalidateCatalogue(transaction?: Transaction | null) {
   const drop = () => {
     version++
     bodies.clear()
+    shopTiers.clear()
   }
   if (transaction) transaction.afterCommit(drop)
   else drop()
@@ -35,4 +39,17 @@ export async function cachedCatalogue(key: string, make: () => Promise<string>):
   const body = { json, etag: `W/"${createHash('sha1').update(json).digest('base64url')}"` }
   if (version === started) bodies.set(key, { version: started, ...body })
   return body
+}
+
+/** The shop's tier, from `load()` once per change. */
+export async function cachedShopTier(
+  shopId: number,
+  load: () => Promise<number | null>,
+): Promise<number | null> {
+  const hit = shopTiers.get(shopId)
+  if (hit && hit.version === version) return hit.tierId
+  const started = version
+  const tierId = await load()
+  if (version === started) shopTiers.set(shopId, { version: started, tierId })
+  return tierId
 }
