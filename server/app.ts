@@ -13,6 +13,7 @@ import { applicationsRoutes } from '@server/modules/applications/applications.ro
 import type { ApplicationLimits } from '@server/modules/applications/applications.routes'
 import { authRoutes } from '@server/modules/auth/auth.routes'
 import { batchesRoutes } from '@server/modules/batches/batches.routes'
+import { benchRoutes } from '@server/modules/bench/bench.routes'
 import { createPassport } from '@server/modules/auth/passport'
 import { batchSheetRoutes } from '@server/modules/batch-sheet/batch-sheet.routes'
 import { cartRoutes } from '@server/modules/cart/cart.routes'
@@ -100,6 +101,9 @@ export function createApp(opts: AppOptions = {}) {
         tableName: 'sessions',
         createTableIfMissing: false,
         pruneSessionInterval: opts.pruneSessions === false ? false : 15 * 60,
+        // With rolling: false the browser's cookie expires a fixed time after sign-in, so moving
+        // the stored expiry on every request (an UPDATE per GET) bought nothing.
+        disableTouch: true,
       }),
       resave: false,
       saveUninitialized: false,
@@ -140,6 +144,8 @@ export function createApp(opts: AppOptions = {}) {
   api.use('/orders.csv', ordersCsvRoutes())
   api.use('/orders', ordersRoutes())
   api.use(notFound)
+  // The benchmark's bare baselines, beside the API and outside its session (LC_BENCH=1 only).
+  if (env.LC_BENCH) app.use('/api/bench', benchRoutes())
   app.use('/api', api)
 
   if (opts.serveClient && fs.existsSync(path.join(CLIENT_DIR, 'index.html'))) {

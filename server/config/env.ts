@@ -33,6 +33,8 @@ const EnvSchema = z
     CARD_API_HOST: z.string().trim().min(1).optional(),
     CARD_API_PORT: z.coerce.number().int().min(1).max(65535).optional(),
     CARD_API_PROTOCOL: z.enum(['http', 'https']).optional(),
+    /** Mounts the benchmark's bare baselines under /api/bench (npm run bench only; never in a normal run). */
+    LC_BENCH: bool.default(false),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {

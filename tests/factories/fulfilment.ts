@@ -10,6 +10,7 @@ import { addDays } from '@shared/domain/dates/dates'
 import type { OrderStatus } from '@shared/domain/orders/order-status'
 import { PlaceOrderSchema } from '@shared/schemas/orders'
 import { sequelize } from '@server/db/sequelize'
+import { invalidateCatalogue } from '@server/modules/catalogue/catalogue-cache'
 import { studioToday } from '@server/modules/availability/availability.service'
 import { confirmOrder } from '@server/modules/orders/order-changes.service'
 import { placeOrder } from '@server/modules/orders/orders.service'
@@ -77,6 +78,8 @@ export async function makeSellable(
     `INSERT INTO price_breaks (tier_id, product_id, min_cases, unit_price_cents) SELECT id, $1, 1, $2 FROM price_tiers`,
     { bind: [p.productId, unitPriceCents] },
   )
+  // Written past the services: the in-process catalogue cache must hear of it.
+  invalidateCatalogue()
   return {
     productId: p.productId,
     sku: p.sku,

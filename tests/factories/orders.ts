@@ -7,6 +7,7 @@ import { randomBytes } from 'node:crypto'
 import { QueryTypes } from 'sequelize'
 import { addDays, isoToday } from '@shared/domain/dates/dates'
 import { sequelize } from '@server/db/sequelize'
+import { invalidateCatalogue } from '@server/modules/catalogue/catalogue-cache'
 import { getSettings } from '@server/modules/settings/settings.service'
 import { DEMO_SHOPS } from '../../seeders/demo/scenario'
 
@@ -88,6 +89,8 @@ export async function makeProduct(
   }
   const p: TestProduct = { productId: product!.id, sku, name, casePack, netWeightG, batchIds: [] }
   for (const b of opts.batches ?? []) p.batchIds.push(await addBatch(p, b))
+  // Written past the services: the in-process catalogue cache must hear of it.
+  invalidateCatalogue()
   return p
 }
 
@@ -106,6 +109,8 @@ export async function addBatch(p: { productId: number; sku: string }, b: BatchSp
     `INSERT INTO stock_moves (batch_id, kind, bars, free_delta, reserved_delta) VALUES ($1, 'made', $2, $2, 0)`,
     { bind: [batch!.id, b.bars] },
   )
+  // Written past the services: the in-process catalogue cache must hear of it.
+  invalidateCatalogue()
   return batch!.id
 }
 

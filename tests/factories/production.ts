@@ -5,6 +5,7 @@
 import { randomBytes } from 'node:crypto'
 import { QueryTypes } from 'sequelize'
 import { sequelize } from '@server/db/sequelize'
+import { invalidateCatalogue } from '@server/modules/catalogue/catalogue-cache'
 
 const tag = () => randomBytes(3).toString('hex').toUpperCase()
 
@@ -178,5 +179,7 @@ export async function makeShippedOrder(
       { bind: [batchId, kind, bars, free, reserved, order.id, line.id, userId] },
     )
   }
+  // Written past the services: the in-process catalogue cache must hear of it.
+  invalidateCatalogue()
   return { orderId: order.id, orderNumber: order.number, shopId: shop.id, shopName: shop.trading_name }
 }

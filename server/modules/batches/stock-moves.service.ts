@@ -6,6 +6,7 @@ import { DomainError } from '@shared/domain/errors'
 import type { StockMoveRow } from '@shared/schemas/batches'
 import { sequelize } from '@server/db/sequelize'
 import { AppError } from '@server/lib/app-error'
+import { invalidateCatalogue } from '@server/modules/catalogue/catalogue-cache'
 
 // The one writer of stock_moves. Every move takes the batch's balance row FOR UPDATE first, so two
 // moves on one batch queue up and the second sees the first; applyMove turns an overdraw into a
@@ -104,6 +105,7 @@ export async function recordStockMove(
     throw err
   }
   const d = moveDeltas(move.kind, move.bars)
+  invalidateCatalogue(t)
   let rows: MoveRowDb[]
   try {
     rows = await sequelize.query<MoveRowDb>(

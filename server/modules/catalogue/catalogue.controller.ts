@@ -1,9 +1,10 @@
 import type { Request, Response } from 'express'
-import type { CatalogueDto } from '@shared/schemas/catalogue'
 import { buyerShopId } from '@server/middlewares/require-role'
-import { catalogue } from '@server/modules/catalogue/catalogue.service'
+import { catalogueJsonForShop } from '@server/modules/catalogue/catalogue.service'
 
+/** The body is a `CatalogueDto`, cached per tier as JSON (catalogue.service.ts). */
 export async function list(req: Request, res: Response) {
-  const body: CatalogueDto = { items: await catalogue({ shopId: buyerShopId(req) }) }
-  res.json(body)
+  const body = await catalogueJsonForShop(buyerShopId(req))
+  // The ETag made with the body: Express would otherwise hash the whole body on every answer.
+  res.type('application/json').set('ETag', body.etag).send(body.json)
 }

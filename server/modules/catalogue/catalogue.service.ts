@@ -3,9 +3,11 @@ import type { Transaction } from 'sequelize'
 import { casesFromBars } from '@shared/domain/availability/availability'
 import type { CatalogueItem } from '@shared/schemas/catalogue'
 import type { PriceBreakDto } from '@shared/schemas/orders'
-import { sequelize } from '@server/db/sequelize'
-import { readyStockByProduct } from '@server/modules/availability/availability.service'
+import { pool, sequelize } from '@server/db/sequelize'
+import { readyStockByProduct, studioToday } from '@server/modules/availability/availability.service'
 import { photoUrl } from '@server/modules/products/products.service'
+import { cachedCatalogue, cachedShopTier } from '@server/modules/catalogue/catalogue-cache'
+import type { CachedBody } from '@server/modules/catalogue/catalogue-cache'
 
 /** A product a shop may order: on sale and priced at the shop's tier (its breaks ascending). */
 export type SellableProduct = {
@@ -104,4 +106,18 @@ export async function catalogue(tier: { tierId: number } | { shopId: number }): 
       photoUrl: p.photoUrl,
     }
   })
+}
+
+/** `GET /api/catalogue`'s body for a shop: its tier's cached JSON (catalogue-cache.ts), made at most once per change. */
+export async function catalogueJsonForShop(shopId: number): Promise<CachedBody> {
+  const tierId = await cachedShopTier(shopId, async () => {
+    const { rows } = await pool.query<{ tier_id: number | null }>('SELECT tier_id FROM shops WHERE id = $1', [
+      shopId,
+    ])
+    return rows[0]?.tier_id ?? null
+  })
+  if (tierId === null) return { json: JSON.stringify({ items: [] }), etag: 'W/"no-tier"' }
+  return cachedCatalogue(`${tierId}|${await studioToday()}`, async () =>
+    JSON.stringify({ items: await catalogue({ tierId }) }),
+  )
 }

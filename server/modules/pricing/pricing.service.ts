@@ -24,6 +24,7 @@ import { listTiers } from '@server/modules/price-tiers/price-tiers.service'
 import { PriceBreak } from '@server/modules/pricing/price-break.model'
 import { productCosts } from '@server/modules/products/product-cost'
 import { getSettings } from '@server/modules/settings/settings.service'
+import { invalidateCatalogue } from '@server/modules/catalogue/catalogue-cache'
 
 type ProductRow = {
   id: number
@@ -218,6 +219,7 @@ export async function savePriceBreaks(
     }
 
     await PriceBreak.destroy({ where: { productId, tierId }, transaction: t })
+    invalidateCatalogue(t)
     if (breaks.length > 0) {
       await PriceBreak.bulkCreate(
         [...breaks]
@@ -307,6 +309,7 @@ export async function acceptSuggestions(
       )
     }
 
+    invalidateCatalogue(t)
     for (const it of input.items) {
       await sequelize.query(
         `INSERT INTO price_breaks (tier_id, product_id, min_cases, unit_price_cents) VALUES ($1, $2, 1, $3)

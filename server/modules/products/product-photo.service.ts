@@ -8,6 +8,7 @@ import { audit } from '@server/modules/audit/audit.service'
 import { Product } from '@server/modules/products/product.model'
 import { getProduct } from '@server/modules/products/products.service'
 import { PHOTO_EXTENSION, safeFilename, sniffImageType } from '@server/modules/products/photo-file'
+import { invalidateCatalogue } from '@server/modules/catalogue/catalogue-cache'
 
 /** Stores the photo in `uploads` and points the product at it; the previous photo is deleted. */
 export async function saveProductPhoto(
@@ -38,6 +39,7 @@ export async function saveProductPhoto(
     )
     const previous = product.photoUploadId
     await product.update({ photoUploadId: inserted!.id }, { transaction: t })
+    invalidateCatalogue(t)
     if (previous) {
       await sequelize.query(`DELETE FROM uploads WHERE id = $1 AND purpose = 'product_photo'`, {
         bind: [previous],
@@ -65,6 +67,7 @@ export async function removeProductPhoto(productId: number, byUserId: number): P
     const previous = product.photoUploadId
     if (!previous) return
     await product.update({ photoUploadId: null }, { transaction: t })
+    invalidateCatalogue(t)
     await sequelize.query(`DELETE FROM uploads WHERE id = $1 AND purpose = 'product_photo'`, {
       bind: [previous],
       transaction: t,

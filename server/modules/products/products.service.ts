@@ -13,6 +13,7 @@ import { AppError } from '@server/lib/app-error'
 import { audit } from '@server/modules/audit/audit.service'
 import { Product } from '@server/modules/products/product.model'
 import { productCosts } from '@server/modules/products/product-cost'
+import { invalidateCatalogue } from '@server/modules/catalogue/catalogue-cache'
 
 type Row = {
   id: number
@@ -183,6 +184,7 @@ export async function createProduct(input: ProductCreateInput, byUserId: number)
         },
         { transaction: t },
       )
+      invalidateCatalogue(t)
       await audit(
         { userId: byUserId, action: 'product.created', entity: 'product', entityId: product.id, data: input },
         t,
@@ -219,6 +221,7 @@ export async function updateProduct(
         if (value !== undefined) (changes as Record<string, unknown>)[key] = value
       }
       await product.update(changes, { transaction: t })
+      invalidateCatalogue(t)
       await audit(
         { userId: byUserId, action: 'product.updated', entity: 'product', entityId: id, data: patch },
         t,

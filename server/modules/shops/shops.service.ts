@@ -29,6 +29,7 @@ import type { CertificateUpload } from '@server/modules/shops/certificate-file'
 import { storeCertificate } from '@server/modules/shops/certificate.service'
 import { Shop } from '@server/modules/shops/shop.model'
 import { inviteUser, listUsers } from '@server/modules/users/users.service'
+import { invalidateCatalogue } from '@server/modules/catalogue/catalogue-cache'
 
 type Row = {
   id: number
@@ -243,6 +244,7 @@ export async function approveShop(
         },
         { transaction: t },
       )
+      invalidateCatalogue(t)
       const email = input.buyerEmail ?? shop.contactEmail.toLowerCase()
       const name = input.buyerName ?? shop.contactName
       const buyer = await inviteUser({ email, name, role: 'buyer', shopId: id }, byUserId, { transaction: t })
@@ -361,6 +363,7 @@ export async function updateShop(id: number, patch: ShopUpdateInput, byUserId: n
     if (patch.tierId !== undefined) await assertTier(patch.tierId, t)
     const changes = Object.fromEntries(Object.entries(patch).filter(([, v]) => v !== undefined))
     await shop.update(changes as Partial<InferAttributes<Shop>>, { transaction: t })
+    if (patch.tierId !== undefined) invalidateCatalogue(t)
     await audit(
       {
         userId: byUserId,

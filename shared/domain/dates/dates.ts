@@ -84,6 +84,25 @@ export function yearOf(iso: string): number {
   return new Date(toUtc(iso)).getUTCFullYear()
 }
 
+// One formatter per time zone: making an Intl.DateTimeFormat costs far more than using one, and
+// the studio's "today" is asked for on every catalogue and order request.
+const dayFormats = new Map<string, Intl.DateTimeFormat>()
+function dayFormat(timeZone: string): Intl.DateTimeFormat {
+  let f = dayFormats.get(timeZone)
+  if (!f) {
+    f = new Intl.DateTimeFormat('en-US', {
+      timeZone,
+      calendar: 'gregory',
+      numberingSystem: 'latn',
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+    })
+    if (dayFormats.size < 50) dayFormats.set(timeZone, f)
+  }
+  return f
+}
+
 /** The calendar date at `now` in `timeZone` (an IANA name; UTC when omitted). */
 export function isoToday(now: Date = new Date(), timeZone = 'UTC'): string {
   if (!(now instanceof Date) || Number.isNaN(now.getTime())) {
@@ -91,14 +110,7 @@ export function isoToday(now: Date = new Date(), timeZone = 'UTC'): string {
   }
   let parts: Intl.DateTimeFormatPart[]
   try {
-    parts = new Intl.DateTimeFormat('en-US', {
-      timeZone,
-      calendar: 'gregory',
-      numberingSystem: 'latn',
-      year: 'numeric',
-      month: '2-digit',
-      day: '2-digit',
-    }).formatToParts(now)
+    parts = dayFormat(timeZone).formatToParts(now)
   } catch {
     throw new DomainError('invalid_time_zone', `Unknown time zone: ${timeZone}`, 'timeZone')
   }
