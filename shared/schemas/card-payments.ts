@@ -24,7 +24,8 @@ export const CardCheckoutParamsSchema = z.object({
   id: z.coerce
     .number<string | number>({ error: 'Not an invoice.' })
     .int('Not an invoice.')
-    .positive('Not an invoice.'),
+    .positive('Not an invoice.')
+    .max(2_147_483_647, 'Not an invoice.'),
   sessionId: z
     .string()
     .trim()
@@ -70,13 +71,15 @@ export const PaymentIdParamsSchema = z.object({
   id: z.coerce
     .number<string | number>({ error: 'Not a payment.' })
     .int('Not a payment.')
-    .positive('Not a payment.'),
+    .positive('Not a payment.')
+    .max(2_147_483_647, 'Not a payment.'),
 })
 export const ProblemIdParamsSchema = z.object({
   id: z.coerce
     .number<string | number>({ error: 'Not a problem.' })
     .int('Not a problem.')
-    .positive('Not a problem.'),
+    .positive('Not a problem.')
+    .max(2_147_483_647, 'Not a problem.'),
 })
 
 export type RefundDto = {

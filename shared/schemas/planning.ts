@@ -21,8 +21,9 @@ export type PlanQueryInput = z.input<typeof PlanQuerySchema>
 export const CreatePlannedPourSchema = z.object({
   productId: z.coerce
     .number<string | number>({ error: 'Choose a product.' })
-    .int()
-    .positive('Choose a product.'),
+    .int('Choose a product.')
+    .positive('Choose a product.')
+    .max(2_147_483_647, 'Choose a product.'),
   pourDate: z
     .string({ error: 'Enter the pour date.' })
     .trim()
@@ -45,7 +46,8 @@ export const PlannedPourIdParamsSchema = z.object({
   id: z.coerce
     .number<string | number>({ error: 'Not a planned pour.' })
     .int('Not a planned pour.')
-    .positive('Not a planned pour.'),
+    .positive('Not a planned pour.')
+    .max(2_147_483_647, 'Not a planned pour.'),
 })
 
 /** The pour lead time on the settings screen: days to spare between the cure's end and run-out. */

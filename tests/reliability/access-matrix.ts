@@ -89,6 +89,7 @@ export const ACCESS_MATRIX: Record<string, MatrixEntry> = {
 
   'GET /api/settings': OWNER,
   'PUT /api/settings/studio': OWNER,
+  'PUT /api/settings/planning': OWNER,
   'GET /api/studio': EVERYONE_SIGNED_IN,
 
   'GET /api/products/:id/photo': EVERYONE_SIGNED_IN,
@@ -166,6 +167,27 @@ export const ACCESS_MATRIX: Record<string, MatrixEntry> = {
   'GET /api/payments': OWNER,
   'GET /api/payments.csv': OWNER,
   'GET /api/receivables': OWNER,
+  'POST /api/webhooks/card': r('ok ok ok ok ok', {
+    fuzz: { skip: 'signed by the card service: unsigned bodies are 400, in tests/api/card-payments.test.ts' },
+  }),
+  'GET /api/card-payments/status': EVERYONE_SIGNED_IN,
+  'POST /api/invoices/:id/card-checkout': r('401 ok 404 403 403', {
+    fuzz: { skip: 'takes no body; each call opens a checkout at the card service' },
+  }),
+  'GET /api/invoices/:id/card-checkouts/:sessionId': r('401 ok 404 403 403'),
+  'POST /api/payments/:id/refunds': OWNER,
+  'GET /api/card-payments/problems': OWNER,
+  'POST /api/card-payments/problems/:id/dismiss': r('401 403 403 403 ok', {
+    fuzz: { skip: 'takes no body' },
+  }),
+
+  'GET /api/home/today': OWNER,
+  'GET /api/planning/plan': OWNER,
+  'POST /api/planning/pours': OWNER,
+  'GET /api/planning/pours/:id': OWNER,
+  'DELETE /api/planning/pours/:id': r('401 403 403 403 ok', { fuzz: { skip: 'takes no body' } }),
+  'GET /api/sales': r('401 403 403 403 ok', { query: 'from=2026-01-01&to=2026-12-31&by=shop' }),
+  'GET /api/sales.csv': r('401 403 403 403 ok', { query: 'from=2026-01-01&to=2026-12-31' }),
 
   'GET /api/catalogue': BUYER,
   'GET /api/cart': BUYER,

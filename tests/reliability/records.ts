@@ -66,13 +66,52 @@ export async function shopARecords(owner: ApiClient): Promise<Records> {
     ...(await text(`SELECT number AS t FROM invoices WHERE shop_id = $1`, [a.shopId])),
     ...(await text(`SELECT email AS t FROM users WHERE shop_id = $1`, [a.shopId])),
   )
+  const invoiceId = await first(`SELECT id FROM invoices WHERE order_id = $1 AND kind = 'invoice'`, [
+    shipped.orderId,
+  ])
+  // A card checkout of that invoice and a card payment problem about it, as the card service's
+  // webhook would have left them; a cheque against it, so a payment exists to ask a refund of.
+  const sessionId = `cs_test_matrix_${Date.now()}`
+  const checkoutId = await first(
+    `INSERT INTO card_checkouts (invoice_id, session_id, amount_cents, currency) VALUES ($1, $2, 100, 'usd') RETURNING id`,
+    [invoiceId, sessionId],
+  )
+  await sequelize.query(
+    `INSERT INTO card_events (event_id, type, outcome) VALUES ($1, 'checkout.session.completed', 'problem')`,
+    {
+      bind: [`evt_matrix_${sessionId}`],
+    },
+  )
+  const problemId = await first(
+    `INSERT INTO card_payment_problems (invoice_id, checkout_id, event_id, session_id, expected_cents, expected_currency,
+                                        received_cents, received_currency, message)
+     VALUES ($1, $2, $3, $4, 100, 'usd', 90, 'usd', 'The amount paid is not the amount asked.') RETURNING id`,
+    [invoiceId, checkoutId, `evt_matrix_${sessionId}`, sessionId],
+  )
+  const paid = await owner.post(`/api/invoices/${invoiceId}/payments`, {
+    method: 'cheque',
+    amountCents: 100,
+    receivedOn: new Date().toISOString().slice(0, 10),
+    reference: 'Cheque 1001',
+  })
+  if (paid.status !== 201) throw new Error(`payment: ${paid.status} ${JSON.stringify(paid.body)}`)
+  const pour = await owner.post('/api/planning/pours', {
+    productId: sellable.productId,
+    pourDate: new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 10),
+    moulds: 1,
+  })
+  if (pour.status !== 201) throw new Error(`planned pour: ${pour.status} ${JSON.stringify(pour.body)}`)
   return {
     shopId: a.shopId,
     userId: a.buyerId,
     orderId: confirmed.orderId,
-    invoiceId: await first(`SELECT id FROM invoices WHERE order_id = $1 AND kind = 'invoice'`, [
-      shipped.orderId,
+    invoiceId,
+    sessionId,
+    problemId,
+    paymentId: await first(`SELECT id FROM payments WHERE invoice_id = $1 ORDER BY id DESC LIMIT 1`, [
+      invoiceId,
     ]),
+    pourId: pour.body.plannedPour.id as number,
     productId: sellable.productId,
     tierId: await first(`SELECT tier_id AS id FROM shops WHERE id = $1`, [a.shopId]),
     recipeId: await first(`SELECT recipe_id AS id FROM products WHERE id = $1`, [sellable.productId]),
@@ -96,6 +135,9 @@ export function fillPath(path: string, rec: Records): string {
     if (p.startsWith('/api/batches/')) return rec.batchId
     if (p.startsWith('/api/ingredients/')) return rec.ingredientId
     if (p.startsWith('/api/purchases/')) return rec.lotId
+    if (p.startsWith('/api/payments/')) return rec.paymentId
+    if (p.startsWith('/api/planning/pours/')) return rec.pourId
+    if (p.startsWith('/api/card-payments/problems/')) return rec.problemId
     throw new Error(`no record for :id in ${p}`)
   }
   return path
@@ -106,4 +148,5 @@ export function fillPath(path: string, rec: Records): string {
     .replace(':lotId', String(rec.lotId))
     .replace(':token', String(rec.token))
     .replace(':ingredientId', String(rec.ingredientId))
+    .replace(':sessionId', String(rec.sessionId))
 }
