@@ -12,6 +12,7 @@ import { AppError } from '@server/lib/app-error'
 import { readyBatchesForUpdate } from '@server/modules/availability/availability.service'
 import type { ReadyBatch } from '@server/modules/availability/availability.service'
 import { recordStockMoves } from '@server/modules/batches/stock-moves.service'
+import { invalidateCatalogue } from '@server/modules/catalogue/catalogue-cache'
 import { sellableProducts } from '@server/modules/catalogue/catalogue.service'
 import type { SellableProduct } from '@server/modules/catalogue/catalogue.service'
 import type { OrderPricing } from '@shared/domain/orders/order-pricing'
@@ -226,6 +227,133 @@ export async function insertLines(
   return lines.map((l) => bySort.get(l.sortOrder)!)
 }
 
+type PlacedOrderRow = {
+  year: number
+  shopId: number
+  userId: number
+  poNumber: string | null
+  note: string | null
+  status: string
+  requestedShipDate: string | null
+  isOpeningOrder: boolean
+  pricing: ReturnType<typeof price>
+  taxExempt: boolean
+  taxRatePct: number
+  key: string
+  hash: string
+  autoConfirm: boolean
+}
+
+/**
+ * The placed order in one statement, so the year's order counter (one row every order waits on)
+ * is held for this statement and the commit alone: the next number, the order, its audit row (as
+ * audit() writes it), its lines, their allocations, and one `reserved` ledger move per allocation
+ * (the batch_stock trigger applies them). The allocations were planned from the balance rows this
+ * transaction holds locked, so no move can overdraw; the CHECK on batch_stock stays the last guard.
+ */
+async function insertPlacedOrder(
+  o: PlacedOrderRow,
+  lines: readonly NewLine[],
+  allocations: readonly Allocation[],
+  t: Transaction,
+): Promise<number> {
+  const col = <K extends keyof NewLine>(k: K) => lines.map((l) => l[k])
+  const bind = [
+    o.year,
+    o.shopId,
+    o.userId,
+    o.poNumber,
+    o.note,
+    o.status,
+    o.requestedShipDate,
+    o.isOpeningOrder,
+    o.pricing.subtotalCents,
+    o.pricing.shippingCents,
+    o.pricing.taxCents,
+    o.pricing.totalCents,
+    o.pricing.weightG,
+    o.taxExempt,
+    o.taxRatePct,
+    o.key,
+    o.hash,
+    o.autoConfirm,
+    // $19–$29: the lines, column by column
+    col('productId'),
+    col('sku'),
+    col('name'),
+    col('cases'),
+    col('casePack'),
+    col('bars'),
+    col('unitPriceCents'),
+    col('lineTotalCents'),
+    col('preorder'),
+    col('promisedDate'),
+    col('sortOrder'),
+    // $30–$32: the allocations, by the sort order of their line
+    allocations.map((a) => lines[Number(a.lineKey)]!.sortOrder),
+    allocations.map((a) => a.batchId),
+    allocations.map((a) => a.bars),
+  ]
+  let rows: { id: number; number: string; seq: number }[]
+  try {
+    rows = await sequelize.query<{ id: number; number: string; seq: number }>(
+      `WITH s AS (
+         INSERT INTO order_sequences (year, last) VALUES ($1, 1)
+         ON CONFLICT (year) DO UPDATE SET last = order_sequences.last + 1 RETURNING last
+       ), o AS (
+         INSERT INTO orders (number, year, seq, shop_id, placed_by, po_number, note, status, requested_ship_date,
+                             is_opening_order, subtotal_cents, shipping_cents, tax_cents, total_cents, weight_g,
+                             tax_exempt, tax_rate_pct, idempotency_key, request_hash, confirmed_at,
+                             created_at, updated_at)
+         SELECT 'O' || lpad(($1::int % 100)::text, 2, '0') || '-'
+                    || lpad(s.last::text, greatest(5, length(s.last::text)), '0'),
+                $1, s.last, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, $15, $16, $17,
+                CASE WHEN $18::boolean THEN clock_timestamp() END, clock_timestamp(), clock_timestamp()
+           FROM s
+         RETURNING id, number, seq
+       ), a AS (
+         INSERT INTO audit_events (user_id, action, entity, entity_id, data)
+         SELECT $3, 'order.placed', 'order', o.id,
+                jsonb_build_object('number', o.number, 'totalCents', $12::int, 'autoConfirmed', $18::boolean)
+           FROM o
+       ), l AS (
+         INSERT INTO order_lines (order_id, product_id, sku, name, cases, case_pack, bars, unit_price_cents,
+                                  line_total_cents, preorder, promised_date, sort_order)
+         SELECT o.id, v.*
+           FROM o, unnest($19::int[], $20::text[], $21::text[], $22::int[], $23::int[], $24::int[], $25::int[],
+                          $26::int[], $27::boolean[], $28::date[], $29::int[]) AS v
+         RETURNING id, sort_order
+       ), al AS (
+         INSERT INTO allocations (order_line_id, batch_id, bars)
+         SELECT l.id, x.batch_id, x.bars
+           FROM unnest($30::int[], $31::int[], $32::int[]) WITH ORDINALITY AS x(sort_order, batch_id, bars, n)
+           JOIN l ON l.sort_order = x.sort_order
+          ORDER BY x.n
+         RETURNING order_line_id, batch_id, bars
+       ), m AS (
+         INSERT INTO stock_moves (batch_id, kind, bars, free_delta, reserved_delta, order_id, order_line_id, user_id)
+         SELECT al.batch_id, 'reserved', al.bars, -al.bars, al.bars, o.id, al.order_line_id, $3 FROM al, o
+       )
+       SELECT id, number, seq FROM o`,
+      { bind, type: QueryTypes.SELECT, transaction: t },
+    )
+  } catch (err) {
+    // 23514: the CHECK on batch_stock (free >= 0, reserved >= 0) refused what the locks should have.
+    if ((err as { parent?: { code?: string } }).parent?.code === '23514') {
+      const message = 'That would take a batch below zero bars.'
+      throw AppError.conflict('stock_negative', message, [{ field: 'bars', message }])
+    }
+    throw err
+  }
+  if (allocations.length > 0) invalidateCatalogue(t)
+  const row = rows[0]!
+  // The number as the domain formats it; a difference would be a bug here, and writes nothing.
+  if (row.number !== formatOrderNumber(o.year, row.seq)) {
+    throw new Error(`order number ${row.number} does not read as sequence ${row.seq} of ${o.year}`)
+  }
+  return row.id
+}
+
 /** Pricing lines for priceOrder from the products a shop may order. */
 export function pricingLines(
   lines: readonly { productId: number; cases: number }[],
@@ -332,62 +460,29 @@ export async function placeOrder(args: {
       )
 
       const year = yearOf(today)
-      const [seq] = await sequelize.query<{ last: number }>(
-        `INSERT INTO order_sequences (year, last) VALUES ($1, 1)
-         ON CONFLICT (year) DO UPDATE SET last = order_sequences.last + 1 RETURNING last`,
-        { bind: [year], type: QueryTypes.SELECT, transaction: t },
-      )
-      const number = formatOrderNumber(year, seq!.last)
-      // The order and its audit row in one statement (the audit row as audit() writes it).
-      const [order] = await sequelize.query<{ id: number }>(
-        `WITH o AS (
-           INSERT INTO orders (number, year, seq, shop_id, placed_by, po_number, note, status, requested_ship_date,
-                               is_opening_order, subtotal_cents, shipping_cents, tax_cents, total_cents, weight_g,
-                               tax_exempt, tax_rate_pct, idempotency_key, request_hash, confirmed_at,
-                               created_at, updated_at)
-           VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, $15, $16, $17, $18, $19,
-                   CASE WHEN $20::boolean THEN clock_timestamp() END, clock_timestamp(), clock_timestamp())
-           RETURNING id
-         ), a AS (
-           INSERT INTO audit_events (user_id, action, entity, entity_id, data)
-           SELECT $5, 'order.placed', 'order', o.id, $21 FROM o
-         )
-         SELECT id FROM o`,
+      formatOrderNumber(year, 1) // refuses a year outside the numbering before anything is written
+      const lines = input.lines.map((l, i) => newLine(l, i, products, pricing, promises))
+      const orderId = await insertPlacedOrder(
         {
-          bind: [
-            number,
-            year,
-            seq!.last,
-            shopId,
-            userId,
-            input.poNumber ?? null,
-            input.note ?? null,
-            autoConfirm ? applyAction('placed', 'confirm', 'owner') : 'placed',
-            input.requestedShipDate ?? null,
-            isOpeningOrder,
-            pricing.subtotalCents,
-            pricing.shippingCents,
-            pricing.taxCents,
-            pricing.totalCents,
-            pricing.weightG,
-            taxExempt,
-            settings.taxRatePct,
-            key,
-            hash,
-            autoConfirm,
-            JSON.stringify({ number, totalCents: pricing.totalCents, autoConfirmed: autoConfirm }),
-          ],
-          type: QueryTypes.SELECT,
-          transaction: t,
+          year,
+          shopId,
+          userId,
+          poNumber: input.poNumber ?? null,
+          note: input.note ?? null,
+          status: autoConfirm ? applyAction('placed', 'confirm', 'owner') : 'placed',
+          requestedShipDate: input.requestedShipDate ?? null,
+          isOpeningOrder,
+          pricing,
+          taxExempt,
+          taxRatePct: settings.taxRatePct,
+          key,
+          hash,
+          autoConfirm,
         },
-      )
-      const orderId = order!.id
-      const lineIds = await insertLines(
-        orderId,
-        input.lines.map((l, i) => newLine(l, i, products, pricing, promises)),
+        lines,
+        allocations,
         t,
       )
-      await reserve(allocations, (i) => lineIds[i]!, orderId, userId, t)
       // Confirmed at once: a prepay account's invoice is raised with it (other terms invoice at shipping).
       if (autoConfirm && shop.paymentTerms === 'prepay') {
         await raiseInvoiceForOrder(orderId, t, { userId, notify: args.notify })
