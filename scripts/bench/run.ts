@@ -9,7 +9,9 @@
  * alternating the app and its baseline. Results go to bench/results.json and a table.
  *
  * BENCH_ROUND_SECONDS (default 8) and BENCH_ROUNDS (default 3) shorten or lengthen a run;
- * BENCH_CPU_PROF=1 writes a CPU profile of the server into bench/profiles/.
+ * BENCH_CPU_PROF=1 writes a CPU profile of the server into bench/profiles/. BENCH_ONLY=orders
+ * measures order placement alone (no client build, no other part) and leaves bench/results.json
+ * as it is: its figures go to the terminal and to lathercase-bench-orders.json in the temp folder.
  */
 import { spawn, spawnSync } from 'node:child_process'
 import type { ChildProcess } from 'node:child_process'
@@ -31,6 +33,7 @@ import type { GoalResult, Summary } from './stats'
 
 const ROUND_S = Number(process.env.BENCH_ROUND_SECONDS ?? 8)
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3)
+const ONLY_ORDERS = process.env.BENCH_ONLY === 'orders'
 const log = (l: string) => console.log(`[bench] ${l}`)
 
 type Session = { cookie: string; csrf: string; userId: number; shopId: number | null }
@@ -429,8 +432,8 @@ const spread = (s: Summary) => `±${fmt(s.spreadPct)}%`
 async function main() {
   const started = Date.now()
   const base0 = fs.mkdtempSync(path.join(os.tmpdir(), 'lathercase-bench-run-'))
-  buildClient()
-  const client = await clientSizes(ROOT, log)
+  if (!ONLY_ORDERS) buildClient()
+  const client = ONLY_ORDERS ? null : await clientSizes(ROOT, log)
 
   log('Starting PostgreSQL and loading the demo data…')
   const db = await startBenchDb(() => {})
@@ -511,6 +514,31 @@ async function main() {
       phasePeakMb[name] = Math.round(Math.max(peakSampled, memoryOf(pid)?.rssMb ?? 0))
       return out
     }
+    if (ONLY_ORDERS) {
+      const orders = await benchOrders(base, orderBuyers, facts)
+      const verified = await verifyOrders(db.url, orders.acceptedApp, orders.acceptedBare)
+      const out = {
+        when: new Date().toISOString(),
+        machine: { cpus: os.cpus().length, loadAverage: os.loadavg(), node: process.version },
+        settings: { roundSeconds: ROUND_S, rounds: ROUNDS },
+        orders: {
+          app: orders.app,
+          bare: orders.bare,
+          ratio: orders.ratio,
+          acceptedApp: orders.acceptedApp.length,
+          acceptedBare: orders.acceptedBare.length,
+          verified,
+        },
+      }
+      const file = path.join(os.tmpdir(), 'lathercase-bench-orders.json')
+      fs.writeFileSync(file, JSON.stringify(out, null, 2) + '\n')
+      log(
+        `orders placed/s: app ${fmt(orders.app.perSecond.median)} (p99 ${fmt(orders.app.p99.median)} ms) · bare ${fmt(orders.bare.perSecond.median)} (p99 ${fmt(orders.bare.p99.median)} ms) · ratio ${fmt(orders.ratio, 2)}`,
+      )
+      log(`Stock check: ${JSON.stringify(verified)}; written to ${file}`)
+      return
+    }
+    if (!client) throw new Error('client sizes missing')
     const catalogue = await phase('catalogue', () => benchCatalogue(base, catalogueBuyer))
     const lists = await phase('orderLists', () => benchOrderLists(base, history, owner, facts))
     const pdf = await phase('invoicePdf', () => benchInvoicePdf(base, owner, facts.invoice40Id))

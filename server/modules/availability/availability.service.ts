@@ -57,9 +57,11 @@ export type ReadyBatch = AllocationBatch & { lotCode: string }
 export async function readyBatchesForUpdate(
   productIds: number[],
   transaction: Transaction,
+  studioDay?: string,
 ): Promise<ReadyBatch[]> {
   if (productIds.length === 0) return []
-  const today = await studioToday(transaction)
+  // A caller that already knows the studio day passes it, so the lock is taken without a settings read first.
+  const today = studioDay ?? (await studioToday(transaction))
   const rows = await sequelize.query<{
     batch_id: number
     product_id: number

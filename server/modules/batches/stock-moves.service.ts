@@ -95,49 +95,84 @@ export async function recordStockMove(
   move: NewStockMove,
   t: Transaction,
 ): Promise<{ move: StockMoveRow; stock: StockBalance }> {
-  const before = await lockedBalance(move.batchId, t)
-  let after: StockBalance
-  try {
-    after = applyMove(before, move.kind, move.bars)
-  } catch (err) {
-    if (err instanceof DomainError && err.code === 'stock_negative')
-      throw stockNegative(overdrawMessage(move, before), before)
-    throw err
-  }
-  const d = moveDeltas(move.kind, move.bars)
+  const [out] = await recordStockMoves([move], t)
+  return out!
+}
+
+const MOVE_COLUMNS = 10
+
+/**
+ * Appends several moves in the caller's transaction with two statements: the balance rows of all
+ * their batches locked in one go, in batch id order (so two writers never lock them crosswise),
+ * then one multi-row insert. The moves apply in the order given (two on one batch: the second sees
+ * the first); any overdraw is the same clean 409 before anything is written. Returns each move with
+ * its batch's balance after it, in the order given.
+ */
+export async function recordStockMoves(
+  moves: readonly NewStockMove[],
+  t: Transaction,
+): Promise<{ move: StockMoveRow; stock: StockBalance }[]> {
+  if (moves.length === 0) return []
+  const batchIds = [...new Set(moves.map((m) => m.batchId))].sort((a, b) => a - b)
+  const locked = await sequelize.query<{ batch_id: number; free: number; reserved: number }>(
+    'SELECT batch_id, free, reserved FROM batch_stock WHERE batch_id = ANY($1::int[]) ORDER BY batch_id FOR UPDATE',
+    { bind: [batchIds], type: QueryTypes.SELECT, transaction: t },
+  )
+  const balances = new Map<number, StockBalance>(
+    locked.map((r) => [r.batch_id, { free: r.free, reserved: r.reserved, onHand: r.free + r.reserved }]),
+  )
+  const afters: StockBalance[] = []
+  let firstBefore: StockBalance = EMPTY_BALANCE
+  const bind: unknown[] = []
+  const values: string[] = []
+  moves.forEach((move, i) => {
+    const before = balances.get(move.batchId) ?? EMPTY_BALANCE
+    if (i === 0) firstBefore = before
+    let after: StockBalance
+    try {
+      after = applyMove(before, move.kind, move.bars)
+    } catch (err) {
+      if (err instanceof DomainError && err.code === 'stock_negative')
+        throw stockNegative(overdrawMessage(move, before), before)
+      throw err
+    }
+    balances.set(move.batchId, after)
+    afters.push(after)
+    const d = moveDeltas(move.kind, move.bars)
+    const start = bind.length
+    bind.push(
+      move.batchId,
+      move.kind,
+      move.bars,
+      d.freeDelta,
+      d.reservedDelta,
+      move.reason ?? null,
+      move.note ?? null,
+      move.orderId ?? null,
+      move.orderLineId ?? null,
+      move.userId,
+    )
+    values.push(`(${Array.from({ length: MOVE_COLUMNS }, (_, k) => `$${start + k + 1}`).join(', ')})`)
+  })
   invalidateCatalogue(t)
   let rows: MoveRowDb[]
   try {
     rows = await sequelize.query<MoveRowDb>(
       `WITH m AS (
          INSERT INTO stock_moves (batch_id, kind, bars, free_delta, reserved_delta, reason, note, order_id, order_line_id, user_id)
-         VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10)
+         VALUES ${values.join(', ')}
          RETURNING *
        )
-       SELECT m.*, u.name AS user_name FROM m LEFT JOIN users u ON u.id = m.user_id`,
-      {
-        bind: [
-          move.batchId,
-          move.kind,
-          move.bars,
-          d.freeDelta,
-          d.reservedDelta,
-          move.reason ?? null,
-          move.note ?? null,
-          move.orderId ?? null,
-          move.orderLineId ?? null,
-          move.userId,
-        ],
-        type: QueryTypes.SELECT,
-        transaction: t,
-      },
+       SELECT m.*, u.name AS user_name FROM m LEFT JOIN users u ON u.id = m.user_id ORDER BY m.id`,
+      { bind, type: QueryTypes.SELECT, transaction: t },
     )
   } catch (err) {
     // 23514: the CHECK on batch_stock (free >= 0, reserved >= 0) refused what the lock should have.
     if ((err as { parent?: { code?: string } }).parent?.code === '23514') {
-      throw stockNegative('That would take the batch below zero bars.', before)
+      throw stockNegative('That would take the batch below zero bars.', firstBefore)
     }
     throw err
   }
-  return { move: toMoveRow(rows[0]!), stock: after }
+  // A multi-row VALUES inserts in the order written, so the ids ascend in the order given.
+  return rows.map((r, i) => ({ move: toMoveRow(r), stock: afters[i]! }))
 }

@@ -12,6 +12,7 @@ export type OrderingShop = {
   contactEmail: string
   tierId: number | null
   status: ShopStatus
+  paymentTerms: string
   openingOrderDone: boolean
   certificateOnFile: boolean
   certificateExpiresOn: string | null
@@ -29,11 +30,12 @@ export async function orderingShop(
     contact_email: string
     tier_id: number | null
     status: ShopStatus
+    payment_terms: string
     opening_order_done: boolean
     certificate_upload_id: number | null
     certificate_expires_on: string | null
   }>(
-    `SELECT id, trading_name, contact_email, tier_id, status, opening_order_done, certificate_upload_id,
+    `SELECT id, trading_name, contact_email, tier_id, status, payment_terms, opening_order_done, certificate_upload_id,
             certificate_expires_on
        FROM shops WHERE id = $1 ${lock ? 'FOR NO KEY UPDATE' : ''}`,
     { bind: [shopId], type: QueryTypes.SELECT, transaction },
@@ -45,6 +47,7 @@ export async function orderingShop(
     contactEmail: r.contact_email,
     tierId: r.tier_id,
     status: r.status,
+    paymentTerms: r.payment_terms,
     openingOrderDone: r.opening_order_done,
     certificateOnFile: r.certificate_upload_id !== null,
     certificateExpiresOn: r.certificate_expires_on,

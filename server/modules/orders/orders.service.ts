@@ -3,20 +3,19 @@ import { QueryTypes } from 'sequelize'
 import type { Transaction } from 'sequelize'
 import { planAllocation } from '@shared/domain/allocation/allocation'
 import type { Allocation } from '@shared/domain/allocation/allocation'
-import { compareIso, yearOf } from '@shared/domain/dates/dates'
+import { compareIso, isoToday, yearOf } from '@shared/domain/dates/dates'
 import { formatOrderNumber } from '@shared/domain/orders/order-number'
 import { applyAction } from '@shared/domain/orders/order-status'
 import type { OrderDto, PlaceOrder, StockShortfallDto } from '@shared/schemas/orders'
 import { sequelize } from '@server/db/sequelize'
 import { AppError } from '@server/lib/app-error'
-import { audit } from '@server/modules/audit/audit.service'
-import { readyBatchesForUpdate, studioToday } from '@server/modules/availability/availability.service'
+import { readyBatchesForUpdate } from '@server/modules/availability/availability.service'
 import type { ReadyBatch } from '@server/modules/availability/availability.service'
-import { recordStockMove } from '@server/modules/batches/stock-moves.service'
+import { recordStockMoves } from '@server/modules/batches/stock-moves.service'
+import { invalidateCatalogue } from '@server/modules/catalogue/catalogue-cache'
 import { sellableProducts } from '@server/modules/catalogue/catalogue.service'
 import type { SellableProduct } from '@server/modules/catalogue/catalogue.service'
 import type { OrderPricing } from '@shared/domain/orders/order-pricing'
-import { Order } from '@server/modules/orders/order.model'
 import { sendOrderMailsLater } from '@server/modules/orders/order-mail'
 import type { OrderMail } from '@server/modules/orders/order-mail'
 import {
@@ -32,7 +31,6 @@ import { promisePreorders } from '@server/modules/orders/preorders.service'
 import { isUniqueViolation, retryingTransaction } from '@server/modules/orders/transactions'
 import { raiseInvoiceForOrder } from '@server/modules/invoices/invoices.service'
 import { getSettings } from '@server/modules/settings/settings.service'
-import { isShopOrderable } from '@server/modules/shops/shops.service'
 
 /** The canonical form of a placing request: the same body always hashes the same. */
 export function requestHash(input: PlaceOrder): string {
@@ -87,7 +85,7 @@ export async function planStock(
   exceptOrderId: number | null = null,
 ): Promise<{ allocations: Allocation[]; promises: Map<number, string> }> {
   const productIds = [...new Set(lines.map((l) => l.productId))]
-  const batches = await readyBatchesForUpdate(productIds, t)
+  const batches = await readyBatchesForUpdate(productIds, t, today)
   const ready = lines.filter((l) => !l.preorder)
   const plan = planAllocation(
     ready.map((l) => ({ lineKey: l.index, productId: l.productId, bars: l.bars })),
@@ -113,7 +111,10 @@ export async function planStock(
   return { allocations: plan.ok ? plan.allocations : [], promises: promised.dates }
 }
 
-/** One `reserved` move and one allocation row per planned allocation. */
+/**
+ * One allocation row and one `reserved` move per planned allocation: the allocations in one
+ * multi-row insert, the moves through recordStockMoves (their balance rows locked in batch id order).
+ */
 export async function reserve(
   allocations: readonly Allocation[],
   lineIdOf: (lineKey: number) => number,
@@ -121,17 +122,31 @@ export async function reserve(
   userId: number | null,
   t: Transaction,
 ): Promise<void> {
-  for (const a of allocations) {
-    const lineId = lineIdOf(Number(a.lineKey))
-    await sequelize.query('INSERT INTO allocations (order_line_id, batch_id, bars) VALUES ($1, $2, $3)', {
-      bind: [lineId, a.batchId, a.bars],
+  if (allocations.length === 0) return
+  const rows = allocations.map((a) => ({
+    lineId: lineIdOf(Number(a.lineKey)),
+    batchId: a.batchId,
+    bars: a.bars,
+  }))
+  await sequelize.query(
+    `INSERT INTO allocations (order_line_id, batch_id, bars)
+     SELECT * FROM unnest($1::int[], $2::int[], $3::int[])`,
+    {
+      bind: [rows.map((r) => r.lineId), rows.map((r) => r.batchId), rows.map((r) => r.bars)],
       transaction: t,
-    })
-    await recordStockMove(
-      { batchId: a.batchId, kind: 'reserved', bars: a.bars, orderId, orderLineId: lineId, userId },
-      t,
-    )
-  }
+    },
+  )
+  await recordStockMoves(
+    rows.map((r) => ({
+      batchId: r.batchId,
+      kind: 'reserved',
+      bars: r.bars,
+      orderId,
+      orderLineId: r.lineId,
+      userId,
+    })),
+    t,
+  )
 }
 
 export type NewLine = {
@@ -212,6 +227,133 @@ export async function insertLines(
   return lines.map((l) => bySort.get(l.sortOrder)!)
 }
 
+type PlacedOrderRow = {
+  year: number
+  shopId: number
+  userId: number
+  poNumber: string | null
+  note: string | null
+  status: string
+  requestedShipDate: string | null
+  isOpeningOrder: boolean
+  pricing: ReturnType<typeof price>
+  taxExempt: boolean
+  taxRatePct: number
+  key: string
+  hash: string
+  autoConfirm: boolean
+}
+
+/**
+ * The placed order in one statement, so the year's order counter (one row every order waits on)
+ * is held for this statement and the commit alone: the next number, the order, its audit row (as
+ * audit() writes it), its lines, their allocations, and one `reserved` ledger move per allocation
+ * (the batch_stock trigger applies them). The allocations were planned from the balance rows this
+ * transaction holds locked, so no move can overdraw; the CHECK on batch_stock stays the last guard.
+ */
+async function insertPlacedOrder(
+  o: PlacedOrderRow,
+  lines: readonly NewLine[],
+  allocations: readonly Allocation[],
+  t: Transaction,
+): Promise<number> {
+  const col = <K extends keyof NewLine>(k: K) => lines.map((l) => l[k])
+  const bind = [
+    o.year,
+    o.shopId,
+    o.userId,
+    o.poNumber,
+    o.note,
+    o.status,
+    o.requestedShipDate,
+    o.isOpeningOrder,
+    o.pricing.subtotalCents,
+    o.pricing.shippingCents,
+    o.pricing.taxCents,
+    o.pricing.totalCents,
+    o.pricing.weightG,
+    o.taxExempt,
+    o.taxRatePct,
+    o.key,
+    o.hash,
+    o.autoConfirm,
+    // $19–$29: the lines, column by column
+    col('productId'),
+    col('sku'),
+    col('name'),
+    col('cases'),
+    col('casePack'),
+    col('bars'),
+    col('unitPriceCents'),
+    col('lineTotalCents'),
+    col('preorder'),
+    col('promisedDate'),
+    col('sortOrder'),
+    // $30–$32: the allocations, by the sort order of their line
+    allocations.map((a) => lines[Number(a.lineKey)]!.sortOrder),
+    allocations.map((a) => a.batchId),
+    allocations.map((a) => a.bars),
+  ]
+  let rows: { id: number; number: string; seq: number }[]
+  try {
+    rows = await sequelize.query<{ id: number; number: string; seq: number }>(
+      `WITH s AS (
+         INSERT INTO order_sequences (year, last) VALUES ($1, 1)
+         ON CONFLICT (year) DO UPDATE SET last = order_sequences.last + 1 RETURNING last
+       ), o AS (
+         INSERT INTO orders (number, year, seq, shop_id, placed_by, po_number, note, status, requested_ship_date,
+                             is_opening_order, subtotal_cents, shipping_cents, tax_cents, total_cents, weight_g,
+                             tax_exempt, tax_rate_pct, idempotency_key, request_hash, confirmed_at,
+                             created_at, updated_at)
+         SELECT 'O' || lpad(($1::int % 100)::text, 2, '0') || '-'
+                    || lpad(s.last::text, greatest(5, length(s.last::text)), '0'),
+                $1, s.last, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, $15, $16, $17,
+                CASE WHEN $18::boolean THEN clock_timestamp() END, clock_timestamp(), clock_timestamp()
+           FROM s
+         RETURNING id, number, seq
+       ), a AS (
+         INSERT INTO audit_events (user_id, action, entity, entity_id, data)
+         SELECT $3, 'order.placed', 'order', o.id,
+                jsonb_build_object('number', o.number, 'totalCents', $12::int, 'autoConfirmed', $18::boolean)
+           FROM o
+       ), l AS (
+         INSERT INTO order_lines (order_id, product_id, sku, name, cases, case_pack, bars, unit_price_cents,
+                                  line_total_cents, preorder, promised_date, sort_order)
+         SELECT o.id, v.*
+           FROM o, unnest($19::int[], $20::text[], $21::text[], $22::int[], $23::int[], $24::int[], $25::int[],
+                          $26::int[], $27::boolean[], $28::date[], $29::int[]) AS v
+         RETURNING id, sort_order
+       ), al AS (
+         INSERT INTO allocations (order_line_id, batch_id, bars)
+         SELECT l.id, x.batch_id, x.bars
+           FROM unnest($30::int[], $31::int[], $32::int[]) WITH ORDINALITY AS x(sort_order, batch_id, bars, n)
+           JOIN l ON l.sort_order = x.sort_order
+          ORDER BY x.n
+         RETURNING order_line_id, batch_id, bars
+       ), m AS (
+         INSERT INTO stock_moves (batch_id, kind, bars, free_delta, reserved_delta, order_id, order_line_id, user_id)
+         SELECT al.batch_id, 'reserved', al.bars, -al.bars, al.bars, o.id, al.order_line_id, $3 FROM al, o
+       )
+       SELECT id, number, seq FROM o`,
+      { bind, type: QueryTypes.SELECT, transaction: t },
+    )
+  } catch (err) {
+    // 23514: the CHECK on batch_stock (free >= 0, reserved >= 0) refused what the locks should have.
+    if ((err as { parent?: { code?: string } }).parent?.code === '23514') {
+      const message = 'That would take a batch below zero bars.'
+      throw AppError.conflict('stock_negative', message, [{ field: 'bars', message }])
+    }
+    throw err
+  }
+  if (allocations.length > 0) invalidateCatalogue(t)
+  const row = rows[0]!
+  // The number as the domain formats it; a difference would be a bug here, and writes nothing.
+  if (row.number !== formatOrderNumber(o.year, row.seq)) {
+    throw new Error(`order number ${row.number} does not read as sequence ${row.seq} of ${o.year}`)
+  }
+  return row.id
+}
+
 /** Pricing lines for priceOrder from the products a shop may order. */
 export function pricingLines(
   lines: readonly { productId: number; cases: number }[],
@@ -230,12 +372,16 @@ export function pricingLines(
 }
 
 /**
- * Places a shop's case order against cured stock, in one transaction: the shop's row, then the
- * ordered products' ready batches (oldest ready first) and curing batches are locked, the plan
- * made, the order numbered, its lines written with frozen prices, its bars reserved with one
- * ledger move per allocation, the opening order marked done and the ordered cart lines cleared.
- * The same Idempotency-Key with the same body answers the same order (created: false), even when
- * both requests arrive at once: the unique index lets one in and the other reads what it made.
+ * Places a shop's case order against cured stock, in one transaction: the shop's row is locked and
+ * everything that needs no stock lock is read and checked first (the key, the shop's standing, the
+ * products and their price breaks, the pricing and minimum, overdue invoices; the opening order is
+ * marked done and the ordered cart lines cleared), so that the ordered products' ready batches
+ * (oldest ready first) and curing batches are locked as late as possible. Under those locks: the
+ * plan, the order numbered and written with its audit row, its lines with frozen prices, its
+ * allocations and `reserved` ledger moves in one insert each, and at auto-confirm a prepay
+ * account's invoice. The same Idempotency-Key with the same body answers the same order
+ * (created: false), even when both requests arrive at once: the unique index lets one in and the
+ * other reads what it made. The e-mails are sent after the commit, without holding up the answer.
  */
 export async function placeOrder(args: {
   shopId: number
@@ -250,6 +396,7 @@ export async function placeOrder(args: {
   const earlier = await orderByKey(shopId, key)
   if (earlier) return replay(earlier, hash, shopId)
   const settings = await getSettings()
+  const productIds = input.lines.map((l) => l.productId)
 
   let outcome:
     { orderId: number; mails: OrderMail[] } | { replayOf: { id: number; request_hash: string | null } }
@@ -259,22 +406,18 @@ export async function placeOrder(args: {
       // Under the shop's lock: a request with this key that committed meanwhile is answered, not repeated.
       const again = await orderByKey(shopId, key, t)
       if (again) return { replayOf: again }
-      if (!(await isShopOrderable(shopId, t))) {
+      if (shop.status !== 'active') {
         throw AppError.unprocessable(
           'account_on_hold',
           'Your account cannot place orders at the moment. Please contact the studio.',
         )
       }
-      const today = await studioToday(t)
+      const today = isoToday(new Date(), settings.timeZone)
       if (input.requestedShipDate && compareIso(input.requestedShipDate, today) < 0) {
         throw AppError.field('requestedShipDate', 'Choose today or a later date.')
       }
       const products = shop.tierId
-        ? await sellableProducts(
-            { tierId: shop.tierId },
-            input.lines.map((l) => l.productId),
-            t,
-          )
+        ? await sellableProducts({ tierId: shop.tierId }, productIds, t)
         : new Map<number, SellableProduct>()
       requireSellable(input.lines, products)
 
@@ -287,7 +430,24 @@ export async function placeOrder(args: {
         taxExempt,
       })
       requireMinimum(pricing, isOpeningOrder, settings.currency)
+      const autoConfirm = settings.autoConfirmGoodStanding && !(await hasOverdueInvoices(shopId, today, t))
 
+      // Writes that take no stock lock (the shop's row is ours already); a 409 below rolls them back.
+      if (isOpeningOrder) {
+        await sequelize.query(
+          'UPDATE shops SET opening_order_done = true, updated_at = now() WHERE id = $1',
+          {
+            bind: [shopId],
+            transaction: t,
+          },
+        )
+      }
+      await sequelize.query('DELETE FROM cart_lines WHERE shop_id = $1 AND product_id = ANY($2::int[])', {
+        bind: [shopId, productIds],
+        transaction: t,
+      })
+
+      // From here the stock rows are locked until the commit: only the plan and the inserts.
       const { allocations, promises } = await planStock(
         input.lines.map((l, i) => ({
           index: i,
@@ -300,72 +460,36 @@ export async function placeOrder(args: {
       )
 
       const year = yearOf(today)
-      const [seq] = await sequelize.query<{ last: number }>(
-        `INSERT INTO order_sequences (year, last) VALUES ($1, 1)
-         ON CONFLICT (year) DO UPDATE SET last = order_sequences.last + 1 RETURNING last`,
-        { bind: [year], type: QueryTypes.SELECT, transaction: t },
-      )
-      const autoConfirm = settings.autoConfirmGoodStanding && !(await hasOverdueInvoices(shopId, today, t))
-      const order = await Order.create(
+      formatOrderNumber(year, 1) // refuses a year outside the numbering before anything is written
+      const lines = input.lines.map((l, i) => newLine(l, i, products, pricing, promises))
+      const orderId = await insertPlacedOrder(
         {
-          number: formatOrderNumber(year, seq!.last),
           year,
-          seq: seq!.last,
           shopId,
-          placedBy: userId,
+          userId,
           poNumber: input.poNumber ?? null,
           note: input.note ?? null,
           status: autoConfirm ? applyAction('placed', 'confirm', 'owner') : 'placed',
           requestedShipDate: input.requestedShipDate ?? null,
           isOpeningOrder,
-          subtotalCents: pricing.subtotalCents,
-          shippingCents: pricing.shippingCents,
-          taxCents: pricing.taxCents,
-          totalCents: pricing.totalCents,
-          weightG: pricing.weightG,
+          pricing,
           taxExempt,
           taxRatePct: settings.taxRatePct,
-          idempotencyKey: key,
-          requestHash: hash,
-          confirmedAt: autoConfirm ? new Date() : null,
+          key,
+          hash,
+          autoConfirm,
         },
-        { transaction: t },
-      )
-      const lineIds = await insertLines(
-        order.id,
-        input.lines.map((l, i) => newLine(l, i, products, pricing, promises)),
+        lines,
+        allocations,
         t,
       )
-      await reserve(allocations, (i) => lineIds[i]!, order.id, userId, t)
-      // Confirmed at once: a prepay account's invoice is raised with it (nothing for other terms).
-      if (autoConfirm) await raiseInvoiceForOrder(order.id, t, { userId, notify: args.notify })
-
-      if (isOpeningOrder) {
-        await sequelize.query(
-          'UPDATE shops SET opening_order_done = true, updated_at = now() WHERE id = $1',
-          {
-            bind: [shopId],
-            transaction: t,
-          },
-        )
+      // Confirmed at once: a prepay account's invoice is raised with it (other terms invoice at shipping).
+      if (autoConfirm && shop.paymentTerms === 'prepay') {
+        await raiseInvoiceForOrder(orderId, t, { userId, notify: args.notify })
       }
-      await sequelize.query('DELETE FROM cart_lines WHERE shop_id = $1 AND product_id = ANY($2::int[])', {
-        bind: [shopId, input.lines.map((l) => l.productId)],
-        transaction: t,
-      })
-      await audit(
-        {
-          userId,
-          action: 'order.placed',
-          entity: 'order',
-          entityId: order.id,
-          data: { number: order.number, totalCents: pricing.totalCents, autoConfirmed: autoConfirm },
-        },
-        t,
-      )
-      const mails: OrderMail[] = [{ kind: 'placed', orderId: order.id }]
-      if (autoConfirm) mails.push({ kind: 'confirmed', orderId: order.id })
-      return { orderId: order.id, mails }
+      const mails: OrderMail[] = [{ kind: 'placed', orderId }]
+      if (autoConfirm) mails.push({ kind: 'confirmed', orderId })
+      return { orderId, mails }
     })
   } catch (err) {
     if (isUniqueViolation(err, 'orders_idempotency_key')) {
@@ -375,7 +499,8 @@ export async function placeOrder(args: {
     throw err
   }
   if ('replayOf' in outcome) return replay(outcome.replayOf, hash, shopId)
-  if (args.notify !== false) sendOrderMailsLater(outcome.mails)
   const order = await findOrder(outcome.orderId, { role: 'buyer', shopId })
+  // Built and sent after the commit and after the answer is read: the buyer never waits for them.
+  if (args.notify !== false) sendOrderMailsLater(outcome.mails)
   return { order: order!, created: true }
 }
