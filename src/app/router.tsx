@@ -1,7 +1,6 @@
 import { createBrowserRouter } from 'react-router-dom'
 import { paths } from '@/config/paths'
-import { HomeRedirect, RoleGate, SignedInLayout } from '@/app/routes/guards'
-import { NotFound } from '@/app/routes/not-found'
+import { HomeRedirect, RoleGate } from '@/app/routes/guards'
 import { RouteError } from '@/app/routes/route-error'
 
 // Every page is its own chunk: the sign-in page loads only what it needs.
@@ -16,7 +15,7 @@ export function createRouter() {
         { path: paths.forgotPassword, lazy: () => import('@/app/routes/forgot-password') },
         { path: paths.setPassword, lazy: () => import('@/app/routes/set-password') },
         {
-          element: <SignedInLayout />,
+          lazy: () => import('@/app/routes/signed-in-layout'),
           children: [
             { path: paths.account, lazy: () => import('@/app/routes/account') },
             {
@@ -94,7 +93,7 @@ export function createRouter() {
                 },
               ],
             },
-            { path: '*', element: <NotFound /> },
+            { path: '*', lazy: () => import('@/app/routes/not-found').then((m) => ({ Component: m.NotFound })) },
           ],
         },
       ],
