@@ -1,6 +1,11 @@
 import { createBrowserRouter } from 'react-router-dom'
 import { paths } from '@/config/paths'
-import { HomeRedirect, RoleGate } from '@/app/routes/guards'
+import type { Role } from '@shared/permissions'
+import { HomeRedirect } from '@/app/routes/guards'
+
+/** A role's pages, gated by a lazy element loaded beside the page's own chunk. */
+const roleGate = (roles: Role[]) => () =>
+  import('@/app/routes/signed-in-layout').then(({ RoleGate }) => ({ element: <RoleGate roles={roles} /> }))
 import { RouteError } from '@/app/routes/route-error'
 
 // Every page is its own chunk: the sign-in page loads only what it needs.
@@ -19,7 +24,7 @@ export function createRouter() {
           children: [
             { path: paths.account, lazy: () => import('@/app/routes/account') },
             {
-              element: <RoleGate roles={['owner']} />,
+              lazy: roleGate(['owner']),
               children: [
                 { path: paths.owner.home, lazy: () => import('@/app/routes/owner-home') },
                 { path: paths.owner.team, lazy: () => import('@/app/routes/owner-team') },
@@ -70,7 +75,7 @@ export function createRouter() {
               ],
             },
             {
-              element: <RoleGate roles={['packer']} />,
+              lazy: roleGate(['packer']),
               children: [
                 { path: paths.packer.home, lazy: () => import('@/app/routes/packer-queue') },
                 { path: paths.packer.order(':orderId'), lazy: () => import('@/app/routes/packer-order') },
@@ -79,7 +84,7 @@ export function createRouter() {
               ],
             },
             {
-              element: <RoleGate roles={['buyer']} />,
+              lazy: roleGate(['buyer']),
               children: [
                 { path: paths.buyer.home, lazy: () => import('@/app/routes/buyer-home') },
                 { path: paths.buyer.catalogue, lazy: () => import('@/app/routes/buyer-catalogue') },
