@@ -224,16 +224,19 @@ export async function listOrders(
   // shop, people and invoice: with the joins outside, an OFFSET deep into a long history built every
   // skipped row too. The count runs beside it on a second connection.
   const order = 'ORDER BY o.created_at DESC, o.id DESC'
-  const page = `SELECT * FROM orders o ${whereSql} ${order} LIMIT ${Number(limit)} OFFSET ${Number((filter.page - 1) * filter.pageSize)}`
+  const page = `SELECT o.id FROM orders o ${whereSql} ${order} LIMIT ${Number(limit)} OFFSET ${Number((filter.page - 1) * filter.pageSize)}`
   const [[countRow], rows] = await Promise.all([
     sequelize.query<{ n: number }>(`SELECT count(*)::int AS n FROM orders o ${whereSql}`, {
       bind,
       type: QueryTypes.SELECT,
     }),
-    sequelize.query<OrderRow>(`${ORDER_SELECT.replace('FROM orders o', `FROM (${page}) o`)} ${order}`, {
-      bind,
-      type: QueryTypes.SELECT,
-    }),
+    sequelize.query<OrderRow>(
+      `${ORDER_SELECT.replace('FROM orders o', `FROM (${page}) page JOIN orders o ON o.id = page.id`)} ${order}`,
+      {
+        bind,
+        type: QueryTypes.SELECT,
+      },
+    ),
   ])
   return { items: await dtos(rows, viewer), total: countRow?.n ?? 0 }
 }
