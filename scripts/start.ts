@@ -12,6 +12,7 @@ import { startCardServiceFake } from './lib/card-service-fake'
 import type { CardServiceFake } from './lib/card-service-fake'
 import { ROOT, loadSecrets, startLocalStack } from './lib/local-stack'
 import { freePort, isPortFree } from './lib/ports'
+import { buildServerIfStale } from './lib/server-build'
 
 const log = (l: string) => console.log(`[lathercase] ${l}`)
 
@@ -44,6 +45,7 @@ async function main() {
     )
   }
   buildClientIfStale()
+  const serverFile = await buildServerIfStale(ROOT, log)
   const stack = await startLocalStack(log)
   const secrets = loadSecrets()
   const appUrl = process.env.APP_URL ?? `http://${host}:${port}`
@@ -68,7 +70,7 @@ async function main() {
       CARD_API_PROTOCOL: 'http',
     }
   }
-  const server = spawn(process.execPath, ['--import', 'tsx', path.join(ROOT, 'server', 'index.ts')], {
+  const server = spawn(process.execPath, [serverFile], {
     cwd: ROOT,
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
     env: {

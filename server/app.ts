@@ -40,7 +40,11 @@ import { traceRoutes } from '@server/modules/trace/trace.routes'
 import { usersRoutes } from '@server/modules/users/users.routes'
 import '@server/db/associations'
 
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..')
+// The repository folder, from server/ (run through tsx) or from dist/server/ (the built server).
+const here = path.dirname(fileURLToPath(import.meta.url))
+const root = [path.resolve(here, '..'), path.resolve(here, '..', '..')].find((d) =>
+  fs.existsSync(path.join(d, 'package.json')),
+)!
 export const CLIENT_DIR = path.join(root, 'dist', 'client')
 
 export type AppOptions = {

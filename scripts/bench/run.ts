@@ -4,7 +4,7 @@
  *
  * It starts its own PostgreSQL (fsync off) and mail catcher, loads the large scenario
  * (scripts/bench/scenario.ts), builds the client, starts the server the way `npm start` does
- * (`node --import tsx server/index.ts`, NODE_ENV=production) with LC_BENCH=1 so that the bare
+ * (the bundled `node dist/server/index.mjs`, NODE_ENV=production) with LC_BENCH=1 so that the bare
  * baselines are mounted beside the API in the same process, and measures each part in rounds,
  * alternating the app and its baseline. Results go to bench/results.json and a table.
  *
@@ -24,6 +24,7 @@ import pg from 'pg'
 import { startMailCatcher } from '../lib/mail-catcher'
 import { freePort } from '../lib/ports'
 import { ROOT } from '../lib/root'
+import { buildServerIfStale } from '../lib/server-build'
 import { clientSizes } from './client-size'
 import { loadScenario } from './scenario'
 import type { ScenarioFacts } from './scenario'
@@ -390,11 +391,11 @@ function buildClient() {
   if (r.status !== 0) throw new Error('The client build failed; see above.')
 }
 
-function startServer(env: Record<string, string>, logFile: string): ChildProcess {
+function startServer(serverFile: string, env: Record<string, string>, logFile: string): ChildProcess {
   const out = fs.openSync(logFile, 'w')
   const profDir = path.join(ROOT, 'bench', 'profiles')
   const prof = process.env.BENCH_CPU_PROF === '1' ? ['--cpu-prof', `--cpu-prof-dir=${profDir}`] : []
-  return spawn(process.execPath, [...prof, '--import', 'tsx', path.join(ROOT, 'server', 'index.ts')], {
+  return spawn(process.execPath, [...prof, serverFile], {
     cwd: ROOT,
     stdio: ['ignore', out, out],
     env: { ...process.env, ...env },
@@ -454,6 +455,7 @@ async function main() {
     const base = `http://127.0.0.1:${port}`
     const logFile = path.join(os.tmpdir(), 'lathercase-bench-server.log')
     server = startServer(
+      await buildServerIfStale(ROOT, log),
       {
         NODE_ENV: 'production',
         LC_BENCH: '1',

@@ -1,6 +1,6 @@
 import fs from 'node:fs'
 import { createRequire } from 'node:module'
-import pdfmake from 'pdfmake'
+import type PdfmakeModule from 'pdfmake'
 import type { Content, StyleDictionary, TDocumentDefinitions, TableLayout } from 'pdfmake/interfaces.js'
 
 // The one PDF renderer. Document layouts live in templates/pdf/ as functions that return a
@@ -18,9 +18,23 @@ const FONT_FILES = {
   bolditalics: 'Roboto-MediumItalic.ttf',
 } as const
 
-let ready = false
-function setUp() {
-  if (ready) return
+type Pdfmake = typeof PdfmakeModule
+
+// pdfmake and its fonts are loaded at the first document, not at start: most requests never render
+// one, and the renderer with four TTFs in its virtual file system holds memory for the process's life.
+let loading: Promise<Pdfmake> | null = null
+function loadPdfmake(): Promise<Pdfmake> {
+  loading ??= import('pdfmake').then(({ default: pdfmake }) => {
+    setUp(pdfmake)
+    return pdfmake
+  })
+  loading.catch(() => {
+    loading = null
+  })
+  return loading
+}
+
+function setUp(pdfmake: Pdfmake) {
   for (const file of Object.values(FONT_FILES)) {
     if (!pdfmake.virtualfs.existsSync(file)) {
       pdfmake.virtualfs.writeFileSync(file, fs.readFileSync(require.resolve(`pdfmake/fonts/Roboto/${file}`)))
@@ -30,11 +44,10 @@ function setUp() {
   // Documents are built from our own data only: no images or fonts fetched from the web or disk.
   pdfmake.setUrlAccessPolicy(() => false)
   pdfmake.setLocalAccessPolicy(() => false)
-  ready = true
 }
 
 export async function renderPdf(docDefinition: TDocumentDefinitions): Promise<Buffer> {
-  setUp()
+  const pdfmake = await loadPdfmake()
   return pdfmake
     .createPdf({
       pageSize: 'LETTER',

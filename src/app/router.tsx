@@ -1,7 +1,11 @@
 import { createBrowserRouter } from 'react-router-dom'
 import { paths } from '@/config/paths'
-import { HomeRedirect, RoleGate, SignedInLayout } from '@/app/routes/guards'
-import { NotFound } from '@/app/routes/not-found'
+import type { Role } from '@shared/permissions'
+import { HomeRedirect } from '@/app/routes/guards'
+
+/** A role's pages, gated by a lazy element loaded beside the page's own chunk. */
+const roleGate = (roles: Role[]) => () =>
+  import('@/app/routes/signed-in-layout').then(({ RoleGate }) => ({ element: <RoleGate roles={roles} /> }))
 import { RouteError } from '@/app/routes/route-error'
 
 // Every page is its own chunk: the sign-in page loads only what it needs.
@@ -16,11 +20,11 @@ export function createRouter() {
         { path: paths.forgotPassword, lazy: () => import('@/app/routes/forgot-password') },
         { path: paths.setPassword, lazy: () => import('@/app/routes/set-password') },
         {
-          element: <SignedInLayout />,
+          lazy: () => import('@/app/routes/signed-in-layout'),
           children: [
             { path: paths.account, lazy: () => import('@/app/routes/account') },
             {
-              element: <RoleGate roles={['owner']} />,
+              lazy: roleGate(['owner']),
               children: [
                 { path: paths.owner.home, lazy: () => import('@/app/routes/owner-home') },
                 { path: paths.owner.team, lazy: () => import('@/app/routes/owner-team') },
@@ -71,7 +75,7 @@ export function createRouter() {
               ],
             },
             {
-              element: <RoleGate roles={['packer']} />,
+              lazy: roleGate(['packer']),
               children: [
                 { path: paths.packer.home, lazy: () => import('@/app/routes/packer-queue') },
                 { path: paths.packer.order(':orderId'), lazy: () => import('@/app/routes/packer-order') },
@@ -80,7 +84,7 @@ export function createRouter() {
               ],
             },
             {
-              element: <RoleGate roles={['buyer']} />,
+              lazy: roleGate(['buyer']),
               children: [
                 { path: paths.buyer.home, lazy: () => import('@/app/routes/buyer-home') },
                 { path: paths.buyer.catalogue, lazy: () => import('@/app/routes/buyer-catalogue') },
@@ -94,7 +98,7 @@ export function createRouter() {
                 },
               ],
             },
-            { path: '*', element: <NotFound /> },
+            { path: '*', lazy: () => import('@/app/routes/not-found').then((m) => ({ Component: m.NotFound })) },
           ],
         },
       ],

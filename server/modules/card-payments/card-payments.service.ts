@@ -65,7 +65,7 @@ export async function createCheckout(
   invoiceId: number,
   viewer: { userId: number; shopId: number },
 ): Promise<CardCheckoutDto> {
-  const stripe = cardProvider()
+  const stripe = await cardProvider()
   const settings = await getSettings()
   const currency = settings.currency.toLowerCase()
   return sequelize.transaction(async (t) => {
@@ -161,7 +161,7 @@ export type WebhookResult = { received: true; duplicate: boolean; outcome: 'paym
  * what was asked, or that is more than the invoice still owes, becomes a problem for the owner.
  */
 export async function handleWebhook(raw: unknown, signature: string | undefined): Promise<WebhookResult> {
-  const secret = webhookSecret()
+  const secret = await webhookSecret()
   if (!signature)
     throw AppError.field('stripe-signature', 'The signature header is missing.', 400, 'signature_missing')
   if (!Buffer.isBuffer(raw) || raw.length === 0) {
@@ -169,7 +169,7 @@ export async function handleWebhook(raw: unknown, signature: string | undefined)
   }
   let event: Stripe.Event
   try {
-    event = cardProvider().webhooks.constructEvent(raw, signature, secret)
+    event = (await cardProvider()).webhooks.constructEvent(raw, signature, secret)
   } catch (err) {
     throw AppError.field(
       'stripe-signature',
@@ -368,7 +368,7 @@ export async function refundPayment(
       'Only card payments taken through the card service can be refunded here; give other money back outside Lathercase.',
     )
   }
-  const stripe = cardProvider()
+  const stripe = await cardProvider()
   const refunded = await sequelize.transaction(async (t) => {
     const inv = await lockInvoice(payment.invoice_id, t)
     if (!inv) throw AppError.notFound('That payment')

@@ -1,4 +1,4 @@
-import Stripe from 'stripe'
+import type Stripe from 'stripe'
 import { env } from '@server/config/env'
 import { AppError } from '@server/lib/app-error'
 
@@ -12,8 +12,11 @@ export function cardPaymentsEnabled(): boolean {
   return Boolean(env.CARD_SECRET_KEY && env.CARD_WEBHOOK_SECRET)
 }
 
-/** 503 `card_payments_off` when no key is configured. */
-export function cardProvider(): Stripe {
+/**
+ * 503 `card_payments_off` when no key is configured. The SDK is loaded at the first card call, not
+ * at start: most requests never need it and it holds memory for the life of the process.
+ */
+export async function cardProvider(): Promise<Stripe> {
   if (!cardPaymentsEnabled()) {
     throw new AppError(
       503,
@@ -21,7 +24,9 @@ export function cardProvider(): Stripe {
       'Card payments are not set up for this studio: pay by bank transfer or cheque, or ask the studio.',
     )
   }
-  client ??= new Stripe(env.CARD_SECRET_KEY!, {
+  if (client) return client
+  const { default: StripeSdk } = await import('stripe')
+  client ??= new StripeSdk(env.CARD_SECRET_KEY!, {
     ...(env.CARD_API_HOST ? { host: env.CARD_API_HOST } : {}),
     ...(env.CARD_API_PORT ? { port: env.CARD_API_PORT } : {}),
     ...(env.CARD_API_PROTOCOL ? { protocol: env.CARD_API_PROTOCOL } : {}),
@@ -32,8 +37,8 @@ export function cardProvider(): Stripe {
   return client
 }
 
-export function webhookSecret(): string {
-  cardProvider()
+export async function webhookSecret(): Promise<string> {
+  await cardProvider()
   return env.CARD_WEBHOOK_SECRET!
 }
 
