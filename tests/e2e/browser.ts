@@ -102,3 +102,63 @@ export async function call(
   if (!r.ok()) throw new Error(`${method} ${url} answered ${r.status()}: ${JSON.stringify(body)}`)
   return body
 }
+
+/**
+ * Lines of one product worth at least `minSubtotalCents` at the buyer's first price break, from
+ * a batch the owner pours for it 60 days back (past any demo recipe's cure): a browser test that
+ * orders has ready stock of its own, whatever the other browser tests order meanwhile.
+ */
+export async function ownStockLines(
+  browser: Browser,
+  buyerPage: Page,
+  sku: string,
+  minSubtotalCents: number,
+) {
+  const items = (await call(buyerPage, 'GET', '/api/catalogue')).items as {
+    productId: number
+    sku: string
+    casePack: number
+    priceBreaks: { minCases: number; unitPriceCents: number }[]
+  }[]
+  const item = items.find((i) => i.sku === sku)
+  if (!item || item.priceBreaks.length === 0) throw new Error(`the demo does not offer ${sku} to this shop`)
+  const cases = Math.ceil(minSubtotalCents / (item.casePack * item.priceBreaks[0]!.unitPriceCents))
+  const studio = await newPage(browser)
+  await signIn(studio.page, 'owner')
+  const pourDate = new Date(Date.now() - 60 * 86_400_000).toISOString().slice(0, 10)
+  const pour = {
+    productId: item.productId,
+    pourDate,
+    barsCut: cases * item.casePack,
+    barsKeptBack: 0,
+    location: 'Rack E2E',
+  }
+  const token = (await (await studio.page.request.get('/api/auth/csrf')).json()).csrfToken as string
+  const first = await studio.page.request.post('/api/batches', {
+    data: pour,
+    headers: { 'X-CSRF-Token': token },
+  })
+  if (first.status() === 409) {
+    // Other browser tests pour too: buy what this batch is short of, as the studio would, and pour.
+    const short = (await first.json()).error.details as {
+      ingredientId: number
+      shortBy: number
+      unit: string
+    }[]
+    for (const d of short) {
+      await call(studio.page, 'POST', '/api/purchases', {
+        ingredientId: d.ingredientId,
+        supplier: 'Wharfside Supply',
+        supplierLotCode: `E2E-${Date.now()}-${d.ingredientId}`,
+        receivedOn: pourDate,
+        quantity: Math.ceil(d.shortBy * 2) + 10,
+        unit: d.unit,
+        costCents: 1000,
+        freightCents: 0,
+      })
+    }
+    await call(studio.page, 'POST', '/api/batches', pour)
+  } else if (!first.ok()) throw new Error(`pour: ${first.status()} ${await first.text()}`)
+  await studio.context.close()
+  return [{ productId: item.productId, cases }]
+}

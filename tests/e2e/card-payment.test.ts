@@ -14,7 +14,7 @@ import type { Browser, Page } from 'playwright-core'
 import { waitForMail } from '@tests/factories/mail'
 import { DEMO } from '@tests/factories/api-client'
 import { TEST_CARDS } from '../../scripts/lib/card-service-fake'
-import { axeViolations, baseUrl, launch, newPage, screenshot, signIn } from './browser'
+import { axeViolations, baseUrl, launch, newPage, ownStockLines, screenshot, signIn } from './browser'
 
 let browser: Browser
 beforeAll(async () => {
@@ -63,13 +63,8 @@ describe('a shop pays an invoice by card', () => {
   it('a prepay order is confirmed and invoiced', async () => {
     const buyer = await newPage(browser)
     await signIn(buyer.page, 'buyerB')
-    const catalogue = await call(buyer.page, 'GET', '/api/catalogue')
-    // Products other browser tests leave alone, two cases each: over any order minimum.
-    const lines = (catalogue.items as { sku: string; productId: number; readyCases: number }[])
-      .filter((i) => i.readyCases >= 2 && !['UNS', 'GCL', 'UNS-XL'].includes(i.sku))
-      .slice(-3)
-      .map((i) => ({ productId: i.productId, cases: 2 }))
-    if (lines.length === 0) throw new Error('the demo has no product with two ready cases')
+    // Over any order minimum, from a batch poured for this test.
+    const lines = await ownStockLines(browser, buyer.page, 'LAV-MINI', 20_000)
     const placed = await call(
       buyer.page,
       'POST',

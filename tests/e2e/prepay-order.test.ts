@@ -8,7 +8,7 @@
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
-import { axeViolations, call, launch, newPage, screenshot, signIn } from './browser'
+import { axeViolations, call, launch, newPage, ownStockLines, screenshot, signIn } from './browser'
 
 let browser: Browser
 beforeAll(async () => {
@@ -25,28 +25,8 @@ describe('a prepay order waits for its payment before it ships', () => {
   it('Harbor Lane orders and the studio confirms: the invoice is raised at confirmation', async () => {
     const buyer = await newPage(browser)
     await signIn(buyer.page, 'buyerB')
-    const catalogue = await call(buyer.page, 'GET', '/api/catalogue')
-    // Stock other browser tests leave alone: at most half of any product's ready cases, over the
-    // reorder minimum (150.00, the settings' default).
-    type Item = {
-      productId: number
-      sku: string
-      casePack: number
-      readyCases: number
-      priceBreaks: { minCases: number; unitPriceCents: number }[]
-    }
-    const lines: { productId: number; cases: number }[] = []
-    let subtotal = 0
-    for (const item of (catalogue.items as Item[])
-      .filter((i) => !['UNS', 'GCL', 'UNS-XL'].includes(i.sku) && i.priceBreaks.length > 0)
-      .sort((a, b) => b.readyCases - a.readyCases)) {
-      if (subtotal >= 20_000) break
-      const cases = Math.floor(item.readyCases / 2)
-      if (cases < 1) continue
-      lines.push({ productId: item.productId, cases })
-      subtotal += cases * item.casePack * item.priceBreaks[0]!.unitPriceCents
-    }
-    expect(subtotal).toBeGreaterThanOrEqual(20_000)
+    // Over the reorder minimum (150.00, the settings' default), from a batch poured for this test.
+    const lines = await ownStockLines(browser, buyer.page, 'CDR-MINI', 20_000)
     const placed = await call(
       buyer.page,
       'POST',
