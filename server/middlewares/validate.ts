@@ -13,17 +13,23 @@ declare module 'express-serve-static-core' {
 }
 
 const NUL_MESSAGE = 'Remove the NUL character (\\u0000): it cannot be stored.'
+const SURROGATE_MESSAGE = 'Remove the broken character (a lone UTF-16 surrogate): it cannot be stored.'
+/** Half of a UTF-16 pair without its other half: not a character, and PostgreSQL's json refuses it. */
+const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/
 
 /**
- * One detail per string holding a NUL character, at its field's path. PostgreSQL's text and jsonb
- * cannot store one (the query fails), so no field may carry it, whatever its schema says.
+ * One detail per string holding a NUL character or a lone UTF-16 surrogate, at its field's path.
+ * PostgreSQL's text and jsonb cannot store either (the query fails), so no field may carry one,
+ * whatever its schema says.
  */
 export function nulCharacterDetails(
   value: unknown,
   path: string[] = [],
 ): { field: string; message: string }[] {
-  if (typeof value === 'string')
-    return value.includes('\u0000') ? [{ field: path.join('.'), message: NUL_MESSAGE }] : []
+  if (typeof value === 'string') {
+    if (value.includes('\u0000')) return [{ field: path.join('.'), message: NUL_MESSAGE }]
+    return LONE_SURROGATE.test(value) ? [{ field: path.join('.'), message: SURROGATE_MESSAGE }] : []
+  }
   if (Array.isArray(value)) return value.flatMap((v, i) => nulCharacterDetails(v, [...path, String(i)]))
   if (value && typeof value === 'object')
     return Object.entries(value).flatMap(([k, v]) => nulCharacterDetails(v, [...path, k]))

@@ -63,6 +63,22 @@ describe('a NUL character in text', () => {
       'name',
     ],
     ['a search', () => owner.get('/api/orders?q=PO%00'), 'query.q'],
+    // Half of a UTF-16 pair (found by the hostile bodies: the audit row's json refused it, 500).
+    [
+      'a lone surrogate in the declaration text',
+      () => owner.post(`/api/products/${productId}/declaration`, { text: 'Sodium olivate \ud800, water' }),
+      'text',
+    ],
+    [
+      'a lone low surrogate in an order note',
+      () =>
+        buyer.post(
+          '/api/orders',
+          { lines: [{ productId, cases: 1 }], poNumber: 'PO-SUR', note: 'Back \udc00door' },
+          { 'Idempotency-Key': randomUUID() },
+        ),
+      'note',
+    ],
   ])('%s is refused with 400 on its field and nothing is written', async (_what, send, field) => {
     const before = await dbSnapshot(sequelize)
     const r = await send()
