@@ -14,7 +14,7 @@ import type { Browser, Page } from 'playwright-core'
 import { waitForMail } from '@tests/factories/mail'
 import { DEMO } from '@tests/factories/api-client'
 import { TEST_CARDS } from '../../scripts/lib/card-service-fake'
-import { axeViolations, baseUrl, launch, newPage, ownStockLines, screenshot, signIn } from './browser'
+import { axeViolations, baseUrl, call, launch, newPage, ownStockLines, screenshot, signIn } from './browser'
 
 let browser: Browser
 beforeAll(async () => {
@@ -23,21 +23,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close()
 })
-
-/** JSON calls with the page's own session (and its CSRF token for writes). */
-async function call(
-  page: Page,
-  method: 'GET' | 'POST',
-  url: string,
-  data?: unknown,
-  headers: Record<string, string> = {},
-) {
-  const token = (await (await page.request.get('/api/auth/csrf')).json()).csrfToken as string
-  const r = await page.request.fetch(url, { method, data, headers: { 'X-CSRF-Token': token, ...headers } })
-  const body = await r.json().catch(() => null)
-  if (!r.ok()) throw new Error(`${method} ${url} answered ${r.status()}: ${JSON.stringify(body)}`)
-  return body
-}
 
 type Invoice = {
   id: number
