@@ -1,9 +1,11 @@
 import type { Request, RequestHandler } from 'express'
-import type { z } from 'zod'
+import { z } from 'zod'
 import { issuesToDetails } from '@shared/schemas/errors'
 import { AppError } from '@server/lib/app-error'
 
-type Schemas = { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType }
+/** Any zod schema: the full zod's or zod/mini's (shared/schemas/auth.ts), both built on zod's core. */
+type AnySchema = z.core.$ZodType
+type Schemas = { body?: AnySchema; query?: AnySchema; params?: AnySchema }
 
 declare module 'express-serve-static-core' {
   interface Request {
@@ -53,7 +55,7 @@ export function validate(schemas: Schemas): RequestHandler {
         details.push(...nul.map((d) => ({ ...d, field: part === 'body' ? d.field : `${part}.${d.field}` })))
         continue
       }
-      const r = schema.safeParse(raw)
+      const r = z.safeParse(schema, raw)
       if (r.success) valid[part] = r.data
       else
         details.push(
@@ -81,12 +83,12 @@ export function validate(schemas: Schemas): RequestHandler {
 }
 
 /** Typed access to what validate() parsed. */
-export function body<S extends z.ZodType>(req: Request, _schema: S): z.output<S> {
+export function body<S extends AnySchema>(req: Request, _schema: S): z.output<S> {
   return req.valid.body as z.output<S>
 }
-export function query<S extends z.ZodType>(req: Request, _schema: S): z.output<S> {
+export function query<S extends AnySchema>(req: Request, _schema: S): z.output<S> {
   return req.valid.query as z.output<S>
 }
-export function params<S extends z.ZodType>(req: Request, _schema: S): z.output<S> {
+export function params<S extends AnySchema>(req: Request, _schema: S): z.output<S> {
   return req.valid.params as z.output<S>
 }
