@@ -115,6 +115,23 @@ describe('PATCH /api/users/:id', () => {
     await new ApiClient(app).login(DEMO.packer.email, DEMO.packer.password)
   })
 
+  it('a new name shows in the person’s own session at once (the signed-in user is remembered, not stale)', async () => {
+    const owner = await clientAs(app, 'owner')
+    const packer = await clientAs(app, 'packer')
+    const before = (await packer.get('/api/auth/me').expect(200)).body.user as { id: number; name: string }
+    await owner
+      .patch(`/api/users/${before.id}`, { name: 'Teo R. Renamed' })
+      .then((x) => expect(x.status).toBe(200))
+    expect((await packer.get('/api/auth/me').expect(200)).body.user.name).toBe('Teo R. Renamed')
+    // A refused change leaves the remembered person as they were.
+    expect((await owner.patch(`/api/users/${before.id}`, { name: '' })).status).toBe(400)
+    expect((await packer.get('/api/auth/me').expect(200)).body.user.name).toBe('Teo R. Renamed')
+    await owner
+      .patch(`/api/users/${before.id}`, { name: before.name })
+      .then((x) => expect(x.status).toBe(200))
+    expect((await packer.get('/api/auth/me').expect(200)).body.user.name).toBe(before.name)
+  })
+
   it('refuses deactivating oneself, unknown ids and bad ids', async () => {
     const owner = await clientAs(app, 'owner')
     const me = (await owner.get('/api/auth/me')).body.user as { id: number }

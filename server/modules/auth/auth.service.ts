@@ -13,6 +13,7 @@ import { AuthToken } from '@server/modules/auth/auth-token.model'
 import { audit } from '@server/modules/audit/audit.service'
 import { getSettings } from '@server/modules/settings/settings.service'
 import { User } from '@server/modules/users/user.model'
+import { forgetSessionsOf, rememberedUser } from '@server/modules/auth/session-cache'
 
 const HOUR = 60 * 60 * 1000
 export const TOKEN_LIFETIME = { reset: HOUR, invite: 7 * 24 * HOUR } as const
@@ -44,7 +45,12 @@ export async function verifyCredentials(email: string, password: string): Promis
 }
 
 /** Loads the session's user on every request; a deactivated user's session stops working at once. */
-export async function loadSessionUser(id: number): Promise<SessionUser | null> {
+/** The signed-in user a request acts as (remembered by this process: auth/session-cache.ts). */
+export function loadSessionUser(id: number): Promise<SessionUser | null> {
+  return rememberedUser(id, () => readSessionUser(id))
+}
+
+async function readSessionUser(id: number): Promise<SessionUser | null> {
   const { rows } = await pool.query<{
     id: number
     email: string
@@ -123,6 +129,7 @@ export async function setPasswordWithToken(token: string, password: string) {
       bind: [String(user.id)],
       transaction: t,
     })
+    forgetSessionsOf(user.id, t)
     await audit(
       {
         userId: user.id,
@@ -178,6 +185,7 @@ export async function changePassword(
       bind: [String(userId), keepSid],
       transaction: t,
     })
+    forgetSessionsOf(userId, t)
     await audit({ userId, action: 'password.changed', entity: 'user', entityId: userId }, t)
   })
 }

@@ -8,6 +8,7 @@ import { audit } from '@server/modules/audit/audit.service'
 import { sendInvitation } from '@server/modules/auth/auth.service'
 import { Shop } from '@server/modules/shops/shop.model'
 import { User } from '@server/modules/users/user.model'
+import { forgetSessionsOf, forgetUser } from '@server/modules/auth/session-cache'
 
 type Row = {
   id: number
@@ -131,11 +132,13 @@ export async function updateUser(id: number, patch: UpdateUserInput, byUserId: n
     const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE })
     if (!user) throw AppError.notFound('That person')
     await user.update(patch, { transaction: t })
+    forgetUser(id, t)
     if (patch.active === false) {
       await sequelize.query(`DELETE FROM sessions WHERE (sess->'passport'->>'user') = $1`, {
         bind: [String(id)],
         transaction: t,
       })
+      forgetSessionsOf(id, t)
     }
     await audit({ userId: byUserId, action: 'user.updated', entity: 'user', entityId: id, data: patch }, t)
   })
