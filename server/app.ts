@@ -1,6 +1,7 @@
 import fs from 'node:fs'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
+import compression from 'compression'
 import connectPgSimple from 'connect-pg-simple'
 import express from 'express'
 import session from 'express-session'
@@ -15,6 +16,7 @@ import { authRoutes } from '@server/modules/auth/auth.routes'
 import { batchesRoutes } from '@server/modules/batches/batches.routes'
 import { benchRoutes } from '@server/modules/bench/bench.routes'
 import { createPassport } from '@server/modules/auth/passport'
+import { rememberingStore } from '@server/modules/auth/session-cache'
 import { batchSheetRoutes } from '@server/modules/batch-sheet/batch-sheet.routes'
 import { cartRoutes } from '@server/modules/cart/cart.routes'
 import { cardPaymentsRoutes, cardWebhookRoutes } from '@server/modules/card-payments/card-payments.routes'
@@ -84,6 +86,12 @@ export function createApp(opts: AppOptions = {}) {
     }),
   )
 
+  // gzip for every answer over 1 KB that a client takes it for (the built client's scripts and
+  // styles, JSON lists, CSV); PDFs and photos are compressed already and pass as they are. The
+  // catalogue sends its own stored gzip (catalogue.controller.ts) and skips the wrapper altogether.
+  const compress = compression()
+  app.use((req, res, next) => (req.path === '/api/catalogue' ? next() : compress(req, res, next)))
+
   const PgStore = connectPgSimple(session)
   const passport = createPassport()
   const api = express.Router()
@@ -100,15 +108,18 @@ export function createApp(opts: AppOptions = {}) {
     session({
       name: 'lc.sid',
       secret: env.SESSION_SECRET,
-      store: new PgStore({
-        pool,
-        tableName: 'sessions',
-        createTableIfMissing: false,
-        pruneSessionInterval: opts.pruneSessions === false ? false : 15 * 60,
-        // With rolling: false the browser's cookie expires a fixed time after sign-in, so moving
-        // the stored expiry on every request (an UPDATE per GET) bought nothing.
-        disableTouch: true,
-      }),
+      // Written through to PostgreSQL, read from memory while known (auth/session-cache.ts).
+      store: rememberingStore(
+        new PgStore({
+          pool,
+          tableName: 'sessions',
+          createTableIfMissing: false,
+          pruneSessionInterval: opts.pruneSessions === false ? false : 15 * 60,
+          // With rolling: false the browser's cookie expires a fixed time after sign-in, so moving
+          // the stored expiry on every request (an UPDATE per GET) bought nothing.
+          disableTouch: true,
+        }),
+      ),
       resave: false,
       saveUninitialized: false,
       rolling: false,
@@ -119,6 +130,9 @@ export function createApp(opts: AppOptions = {}) {
   api.use(passport.session())
   api.use(csrfProtection(['/webhooks/']))
 
+  // The buyers' catalogue first: it is the busiest route, and every router mounted without a
+  // prefix below (packing, invoices, payments…) would otherwise test its paths on each request.
+  api.use('/catalogue', catalogueRoutes())
   api.use('/health', healthRoutes())
   api.use('/auth', authRoutes(passport))
   api.use('/users', usersRoutes())
@@ -143,7 +157,6 @@ export function createApp(opts: AppOptions = {}) {
   api.use('/home', homeRoutes())
   api.use('/planning', planningRoutes())
   api.use(salesRoutes()) // /sales(.csv)
-  api.use('/catalogue', catalogueRoutes())
   api.use('/cart', cartRoutes())
   api.use('/orders.csv', ordersCsvRoutes())
   api.use('/orders', ordersRoutes())
@@ -157,7 +170,8 @@ export function createApp(opts: AppOptions = {}) {
       express.static(CLIENT_DIR, {
         index: false,
         setHeaders: (res, file) => {
-          if (file.includes(`${path.sep}assets${path.sep}`)) res.set('Cache-Control', 'public, max-age=31536000, immutable')
+          if (file.includes(`${path.sep}assets${path.sep}`))
+            res.set('Cache-Control', 'public, max-age=31536000, immutable')
         },
       }),
     )

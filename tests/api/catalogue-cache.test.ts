@@ -4,6 +4,10 @@
  * a new price, a renamed product and one taken off sale; and a refused change leaves it as it was.
  */
 import { randomUUID } from 'node:crypto'
+import { once } from 'node:events'
+import http from 'node:http'
+import type { AddressInfo } from 'node:net'
+import { gunzipSync } from 'node:zlib'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '@server/app'
 import { clientAs } from '@tests/factories/api-client'
@@ -127,5 +131,93 @@ describe('the cached catalogue', () => {
     const off = await owner.patch(`/api/products/${id}`, { active: false })
     expect(off.status, JSON.stringify(off.body)).toBe(200)
     expect(await itemOf(buyerA, id)).toBeUndefined()
+  })
+})
+
+describe('the catalogue on the wire', () => {
+  // The bytes as they cross the wire (supertest would unzip them): over a real socket.
+  const raw = async (c: ApiClient, encoding: string) => {
+    const server = http.createServer(app).listen(0, '127.0.0.1')
+    await once(server, 'listening')
+    const { port } = server.address() as AddressInfo
+    const cookie = (
+      await c.agent.jar.getCookies({ domain: '127.0.0.1', path: '/', secure: false, script: false })
+    )
+      .map((k) => `${k.name}=${k.value}`)
+      .join('; ')
+    try {
+      return await new Promise<{ status: number; headers: http.IncomingHttpHeaders; body: Buffer }>(
+        (resolve, reject) => {
+          http
+            .get(
+              {
+                host: '127.0.0.1',
+                port,
+                path: '/api/catalogue',
+                headers: { cookie, 'accept-encoding': encoding },
+              },
+              (res) => {
+                const chunks: Buffer[] = []
+                res.on('data', (b: Buffer) => chunks.push(b))
+                res.on('end', () =>
+                  resolve({ status: res.statusCode!, headers: res.headers, body: Buffer.concat(chunks) }),
+                )
+              },
+            )
+            .on('error', reject)
+        },
+      )
+    } finally {
+      server.close()
+    }
+  }
+
+  it('sends its stored gzip to a client that takes gzip, JSON to one that does not, the same body either way', async () => {
+    const zipped = await raw(buyerA, 'gzip, deflate, br')
+    expect(zipped.status).toBe(200)
+    expect(zipped.headers['content-encoding']).toBe('gzip')
+    expect(zipped.headers['vary']).toMatch(/Accept-Encoding/i)
+    const plain = await raw(buyerA, 'identity')
+    expect(plain.status).toBe(200)
+    expect(plain.headers['content-encoding']).toBeUndefined()
+    expect(zipped.body.length).toBeLessThan(plain.body.length)
+    const items = JSON.parse(plain.body.toString('utf8')).items as Item[]
+    expect(items.length).toBeGreaterThan(0)
+    expect(JSON.parse(gunzipSync(zipped.body).toString('utf8'))).toEqual({ items })
+    expect(zipped.headers['etag']).toBe(plain.headers['etag'])
+  })
+
+  it('answers 304 on its ETag with or without gzip, and a new body after a change', async () => {
+    const first = await buyerA.get('/api/catalogue').expect(200)
+    const etag = first.headers['etag'] as string
+    for (const encoding of ['gzip', 'identity']) {
+      const again = await buyerA.agent
+        .get('/api/catalogue')
+        .set('If-None-Match', etag)
+        .set('Accept-Encoding', encoding)
+      expect(again.status).toBe(304)
+    }
+    const r = await owner.post(`/api/batches/${p.batchIds[0]}/moves`, {
+      kind: 'written_off',
+      reason: 'damaged',
+      bars: 1,
+    })
+    expect(r.status).toBe(201)
+    const after = await buyerA.agent
+      .get('/api/catalogue')
+      .set('If-None-Match', etag)
+      .set('Accept-Encoding', 'gzip')
+    expect(after.status).toBe(200)
+    expect(after.headers['etag']).not.toBe(etag)
+  })
+
+  it('other answers over 1 KB are gzipped when asked for, and left plain when not', async () => {
+    const zipped = await owner.agent.get('/api/orders?pageSize=25').set('Accept-Encoding', 'gzip')
+    expect(zipped.status).toBe(200)
+    expect(zipped.headers['content-encoding']).toBe('gzip')
+    expect(Array.isArray(zipped.body.items)).toBe(true)
+    const plain = await owner.agent.get('/api/orders?pageSize=25').set('Accept-Encoding', 'identity')
+    expect(plain.headers['content-encoding']).toBeUndefined()
+    expect(plain.body).toEqual(zipped.body)
   })
 })

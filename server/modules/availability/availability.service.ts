@@ -11,9 +11,18 @@ import { getSettings } from '@server/modules/settings/settings.service'
 // ready date, nobody flips it) and from the ledger's free balance (bars not promised to an order).
 
 /** The studio's calendar date, in its own time zone (settings.timeZone). */
+// The studio's date, worked out at most once a second (formatting an instant in a time zone is
+// the costliest step of a cached catalogue answer); a clock moved by tests changes the second.
+let lastToday: { second: number; timeZone: string; iso: string } | null = null
+
 export async function studioToday(transaction?: Transaction): Promise<string> {
   const { timeZone } = await getSettings(transaction)
-  return isoToday(new Date(), timeZone)
+  const now = Date.now()
+  const second = Math.floor(now / 1000)
+  if (lastToday?.second === second && lastToday.timeZone === timeZone) return lastToday.iso
+  const iso = isoToday(new Date(now), timeZone)
+  lastToday = { second, timeZone, iso }
+  return iso
 }
 
 /**

@@ -6,7 +6,7 @@ import type { PriceBreakDto } from '@shared/schemas/orders'
 import { pool, sequelize } from '@server/db/sequelize'
 import { readyStockByProduct, studioToday } from '@server/modules/availability/availability.service'
 import { photoUrl } from '@server/modules/products/products.service'
-import { cachedCatalogue, cachedShopTier } from '@server/modules/catalogue/catalogue-cache'
+import { cachedCatalogue, cachedShopTier, constantBody } from '@server/modules/catalogue/catalogue-cache'
 import type { CachedBody } from '@server/modules/catalogue/catalogue-cache'
 
 /** A product a shop may order: on sale and priced at the shop's tier (its breaks ascending). */
@@ -108,6 +108,8 @@ export async function catalogue(tier: { tierId: number } | { shopId: number }): 
   })
 }
 
+const NO_TIER = constantBody(JSON.stringify({ items: [] }))
+
 /** `GET /api/catalogue`'s body for a shop: its tier's cached JSON (catalogue-cache.ts), made at most once per change. */
 export async function catalogueJsonForShop(shopId: number): Promise<CachedBody> {
   const tierId = await cachedShopTier(shopId, async () => {
@@ -116,7 +118,7 @@ export async function catalogueJsonForShop(shopId: number): Promise<CachedBody> 
     ])
     return rows[0]?.tier_id ?? null
   })
-  if (tierId === null) return { json: JSON.stringify({ items: [] }), etag: 'W/"no-tier"' }
+  if (tierId === null) return NO_TIER
   return cachedCatalogue(`${tierId}|${await studioToday()}`, async () =>
     JSON.stringify({ items: await catalogue({ tierId }) }),
   )
