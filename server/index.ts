@@ -4,6 +4,7 @@ import { closeDb, sequelize } from '@server/db/sequelize'
 import { migrate } from '@server/db/migrator'
 import { createApp } from '@server/app'
 import { logger } from '@server/lib/logger'
+import { closeMail } from '@server/lib/mailer'
 import { startReminderJob } from '@server/modules/payments/reminders.job'
 import { schedulePreorderAllocation } from '@server/modules/orders/preorders.service'
 
@@ -29,7 +30,10 @@ async function main() {
     logger.info('stopping', { signal })
     stopReminders()
     stopPreorders()
-    server.close(() => void closeDb().then(() => process.exit(0)))
+    server.close(() => {
+      closeMail()
+      void closeDb().then(() => process.exit(0))
+    })
     server.closeAllConnections()
     setTimeout(() => process.exit(0), 5000).unref()
   }

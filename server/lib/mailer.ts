@@ -5,6 +5,12 @@ import { env } from '@server/config/env'
 import { logger } from '@server/lib/logger'
 
 const transport = nodemailer.createTransport({
+  // Connections kept open and reused: a burst of orders (two e-mails each) would otherwise open
+  // and greet the relay once per message and hold hundreds of sockets at its peak. Ten at once:
+  // with three, the e-mails of a busy minute fell behind the orders (the benchmark measures it).
+  pool: true,
+  maxConnections: 10,
+  maxMessages: 100,
   host: env.SMTP_HOST,
   port: env.SMTP_PORT,
   secure: env.SMTP_SECURE,
@@ -32,4 +38,9 @@ export async function sendMail(mail: OutgoingMail): Promise<boolean> {
     logger.warn('mail not sent', { to: mail.to, subject: mail.subject, error: (err as Error).message })
     return false
   }
+}
+
+/** Closes the relay connections (the server calls it when it stops). */
+export function closeMail(): void {
+  transport.close()
 }

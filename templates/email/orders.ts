@@ -44,7 +44,7 @@ const po = (order: OrderDto) => (order.poNumber ? ` (your PO ${order.poNumber})`
 export function orderPlacedEmail(p: Common): Email {
   const waiting = p.order.lines.some((l) => l.preorder)
   return renderEmail({
-    subject: `Order ${p.order.number} placed with ${p.studioName}`,
+    subject: `Order ${p.order.number} placed with ${p.studioName}${p.order.status === 'confirmed' ? ' and confirmed' : ''}`,
     studioName: p.studioName,
     greeting: `Hello ${p.name},`,
     blocks: [

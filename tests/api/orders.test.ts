@@ -10,10 +10,11 @@ import { beforeAll, beforeEach, describe, expect, it } from 'vitest'
 import { createApp } from '@server/app'
 import { sequelize } from '@server/db/sequelize'
 import { updateSettings } from '@server/modules/settings/settings.service'
+import { drainMail } from '@server/modules/invoices/mail-queue'
 import { allocateDuePreorders } from '@server/modules/orders/preorders.service'
 import { clientAs } from '@tests/factories/api-client'
 import type { ApiClient } from '@tests/factories/api-client'
-import { waitForMail } from '@tests/factories/mail'
+import { allMail, waitForMail } from '@tests/factories/mail'
 import {
   addBatch,
   balances,
@@ -489,9 +490,20 @@ describe('POST /api/orders', () => {
   it('confirms at once when the studio auto-confirms shops in good standing, but not with an overdue invoice', async () => {
     await updateSettings({ autoConfirmGoodStanding: true })
     const p = await plenty()
-    const good = await place(buyerC, [{ productId: p.productId, cases: 1 }])
+    const po = `AUTO-${randomUUID().slice(0, 8)}`
+    const good = await place(buyerC, [{ productId: p.productId, cases: 1 }], { poNumber: po })
     expect(good.status).toBe('confirmed')
-    await waitForMail(SHOP_OF.buyerC.buyer.email, new RegExp(`Order ${good.number} confirmed`))
+    // One e-mail says both: placed and confirmed (no second 'confirmed' message the same second).
+    const placedMail = await waitForMail(
+      SHOP_OF.buyerC.buyer.email,
+      new RegExp(`Order ${good.number} placed with .+ and confirmed`),
+    )
+    expect(placedMail.text).toContain('The studio has confirmed it already')
+    await drainMail()
+    const forGood = (await allMail()).filter(
+      (m) => m.to.some((t) => t.address === SHOP_OF.buyerC.buyer.email) && m.text.includes(po),
+    )
+    expect(forGood.map((m) => m.subject)).toEqual([placedMail.subject])
     // An invoice of the shop, due yesterday and unpaid.
     const c = await shopId('buyerC')
     const issued = await studioDay(-16)

@@ -58,6 +58,11 @@ export function trackMail<T>(work: Promise<T>): Promise<T> {
   return work
 }
 
+/** How many mail jobs are queued or in flight now (the benchmark reports it). */
+export function mailBacklog(): number {
+  return pending + inFlight.size
+}
+
 /**
  * Waits until no mail is queued or in flight, including mail queued meanwhile by mail that was
  * still going out (a shutdown, or a test file closing its database). Failures are logged where

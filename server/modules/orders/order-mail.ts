@@ -11,6 +11,7 @@ import { env } from '@server/config/env'
 import { sequelize } from '@server/db/sequelize'
 import { logger } from '@server/lib/logger'
 import { sendMail } from '@server/lib/mailer'
+import type { OrderDto } from '@shared/schemas/orders'
 import { findOrder } from '@server/modules/orders/order-queries'
 import { getSettings } from '@server/modules/settings/settings.service'
 import { trackMail } from '@server/modules/invoices/mail-queue'
@@ -23,35 +24,33 @@ type Recipient = { email: string; name: string }
 const buyerLink = (id: number) => `${env.APP_URL}/shop/orders/${id}`
 const studioLink = (id: number) => `${env.APP_URL}/studio/orders/${id}`
 
-/** The buyer who placed the order (while active), else the shop's contact. */
-async function buyerOf(orderId: number): Promise<Recipient | null> {
-  const [r] = await sequelize.query<{
-    email: string | null
-    name: string | null
-    contact_email: string
-    contact_name: string
-  }>(
-    `SELECT u.email, u.name, s.contact_email, s.contact_name
+/**
+ * In one query: the buyer who placed the order (while active), else the shop's contact; and, when
+ * asked, the studio's active owners.
+ */
+async function recipientsOf(
+  orderId: number,
+  withOwners: boolean,
+): Promise<{ buyer: Recipient | null; owners: Recipient[] }> {
+  const rows = await sequelize.query<Recipient & { who: 'buyer' | 'owner' }>(
+    `SELECT 'buyer' AS who,
+            CASE WHEN u.id IS NULL THEN s.contact_email ELSE u.email END AS email,
+            CASE WHEN u.id IS NULL THEN s.contact_name ELSE u.name END AS name, 0 AS sort
        FROM orders o JOIN shops s ON s.id = o.shop_id
        LEFT JOIN users u ON u.id = o.placed_by AND u.active
-      WHERE o.id = $1`,
-    { bind: [orderId], type: QueryTypes.SELECT },
+      WHERE o.id = $1
+     UNION ALL
+     SELECT 'owner', email, name, id FROM users WHERE $2 AND role = 'owner' AND active
+     ORDER BY sort`,
+    { bind: [orderId, withOwners], type: QueryTypes.SELECT },
   )
-  if (!r) return null
-  return r.email ? { email: r.email, name: r.name! } : { email: r.contact_email, name: r.contact_name }
+  const one = (r: Recipient) => ({ email: r.email, name: r.name })
+  const buyer = rows.find((r) => r.who === 'buyer')
+  return { buyer: buyer ? one(buyer) : null, owners: rows.filter((r) => r.who === 'owner').map(one) }
 }
 
-async function owners(): Promise<Recipient[]> {
-  return sequelize.query<Recipient>(
-    `SELECT email, name FROM users WHERE role = 'owner' AND active ORDER BY id`,
-    {
-      type: QueryTypes.SELECT,
-    },
-  )
-}
-
-async function context(orderId: number) {
-  const order = await findOrder(orderId, { role: 'owner', shopId: null })
+async function context(orderId: number, known?: OrderDto) {
+  const order = known ?? (await findOrder(orderId, { role: 'owner', shopId: null }))
   const settings = await getSettings()
   return order ? { order, studioName: settings.studio.name, currency: settings.currency } : null
 }
@@ -61,17 +60,19 @@ async function send(to: Recipient | null, mail: Email) {
 }
 
 export type OrderMail =
-  | { kind: 'placed'; orderId: number }
+  // `order`: the order as read after its commit, when the caller has it already (placing does).
+  | { kind: 'placed'; orderId: number; order?: OrderDto }
   | { kind: 'confirmed'; orderId: number }
   | { kind: 'cancelled'; orderId: number; byStudio: boolean }
   | { kind: 'preorder_allocated'; orderId: number; lineIds: number[] }
 
 /** Sends one order e-mail (with the order as it now stands) to the people it concerns. */
 export async function sendOrderMail(mail: OrderMail): Promise<void> {
-  const ctx = await context(mail.orderId)
+  const ctx = await context(mail.orderId, mail.kind === 'placed' ? mail.order : undefined)
   if (!ctx) return
   const { order, studioName, currency } = ctx
-  const buyer = await buyerOf(order.id)
+  const people = await recipientsOf(order.id, mail.kind === 'placed' || mail.kind === 'cancelled')
+  const buyer = people.buyer
   const forBuyer = (to: Recipient | null) =>
     to ? { studioName, currency, order, name: to.name, link: buyerLink(order.id) } : null
   const forStudio = (to: Recipient) => ({
@@ -85,7 +86,7 @@ export async function sendOrderMail(mail: OrderMail): Promise<void> {
   switch (mail.kind) {
     case 'placed': {
       const jobs: Promise<void>[] = b ? [send(buyer, orderPlacedEmail(b))] : []
-      for (const owner of await owners()) jobs.push(send(owner, orderPlacedStudioEmail(forStudio(owner))))
+      for (const owner of people.owners) jobs.push(send(owner, orderPlacedStudioEmail(forStudio(owner))))
       await Promise.all(jobs)
       return
     }
@@ -98,7 +99,7 @@ export async function sendOrderMail(mail: OrderMail): Promise<void> {
         : []
       // When the shop cancels, the studio hears of it too.
       if (!mail.byStudio) {
-        for (const owner of await owners()) {
+        for (const owner of people.owners) {
           jobs.push(send(owner, orderCancelledEmail({ ...forStudio(owner), byStudio: false })))
         }
       }

@@ -487,8 +487,9 @@ export async function placeOrder(args: {
       if (autoConfirm && shop.paymentTerms === 'prepay') {
         await raiseInvoiceForOrder(orderId, t, { userId, notify: args.notify })
       }
+      // One e-mail to the buyer either way: an order confirmed as it is placed says so in its
+      // placed e-mail (templates/email/orders.ts), rather than a second message the same second.
       const mails: OrderMail[] = [{ kind: 'placed', orderId }]
-      if (autoConfirm) mails.push({ kind: 'confirmed', orderId })
       return { orderId, mails }
     })
   } catch (err) {
@@ -501,6 +502,8 @@ export async function placeOrder(args: {
   if ('replayOf' in outcome) return replay(outcome.replayOf, hash, shopId)
   const order = await findOrder(outcome.orderId, { role: 'buyer', shopId })
   // Built and sent after the commit and after the answer is read: the buyer never waits for them.
-  if (args.notify !== false) sendOrderMailsLater(outcome.mails)
+  // The placed e-mail shows the order just read (the buyer's view carries every price the studio's does).
+  if (args.notify !== false)
+    sendOrderMailsLater(outcome.mails.map((m) => (m.kind === 'placed' && order ? { ...m, order } : m)))
   return { order: order!, created: true }
 }
