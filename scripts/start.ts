@@ -12,7 +12,7 @@ import { startCardServiceFake } from './lib/card-service-fake'
 import type { CardServiceFake } from './lib/card-service-fake'
 import { ROOT, loadSecrets, startLocalStack } from './lib/local-stack'
 import { freePort, isPortFree } from './lib/ports'
-import { buildServerIfStale } from './lib/server-build'
+import { SERVER_NODE_FLAGS, buildServerIfStale } from './lib/server-build'
 
 const log = (l: string) => console.log(`[lathercase] ${l}`)
 
@@ -70,7 +70,7 @@ async function main() {
       CARD_API_PROTOCOL: 'http',
     }
   }
-  const server = spawn(process.execPath, [serverFile], {
+  const server = spawn(process.execPath, [...SERVER_NODE_FLAGS, serverFile], {
     cwd: ROOT,
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
     env: {

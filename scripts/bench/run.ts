@@ -17,6 +17,7 @@ import { spawn, spawnSync } from 'node:child_process'
 import type { ChildProcess } from 'node:child_process'
 import { randomBytes, randomUUID } from 'node:crypto'
 import fs from 'node:fs'
+import http from 'node:http'
 import os from 'node:os'
 import path from 'node:path'
 import autocannon from 'autocannon'
@@ -24,7 +25,7 @@ import pg from 'pg'
 import { startMailCatcher } from '../lib/mail-catcher'
 import { freePort } from '../lib/ports'
 import { ROOT } from '../lib/root'
-import { buildServerIfStale } from '../lib/server-build'
+import { SERVER_NODE_FLAGS, buildServerIfStale } from '../lib/server-build'
 import { clientSizes } from './client-size'
 import { loadScenario } from './scenario'
 import type { ScenarioFacts } from './scenario'
@@ -38,6 +39,29 @@ const ONLY_ORDERS = process.env.BENCH_ONLY === 'orders'
 const log = (l: string) => console.log(`[bench] ${l}`)
 
 type Session = { cookie: string; csrf: string; userId: number; shopId: number | null }
+
+/** What every browser sends: the load generator asks for gzip as the buyer's browser would. */
+const BROWSER = { 'accept-encoding': 'gzip, deflate, br' }
+
+/** An answer's bytes as they came over the wire (fetch would decompress them). */
+function rawGet(url: string, headers: Record<string, string>) {
+  return new Promise<{ status: number; encoding: string; bytes: Buffer }>((resolve, reject) => {
+    http
+      .get(url, { headers }, (res) => {
+        const chunks: Buffer[] = []
+        res.on('data', (c: Buffer) => chunks.push(c))
+        res.on('end', () =>
+          resolve({
+            status: res.statusCode ?? 0,
+            encoding: String(res.headers['content-encoding'] ?? 'identity'),
+            bytes: Buffer.concat(chunks),
+          }),
+        )
+        res.on('error', reject)
+      })
+      .on('error', reject)
+  })
+}
 
 function cookieOf(res: Response, previous = ''): string {
   const set = res.headers.getSetCookie().map((c) => c.split(';')[0]!)
@@ -122,26 +146,35 @@ async function benchCatalogue(base: string, buyer: Session) {
   const res = await fetch(`${base}/api/catalogue`, { headers: { cookie: buyer.cookie } })
   const text = await res.text()
   if (res.status !== 200) throw new Error(`catalogue: ${res.status} ${text.slice(0, 200)}`)
+  // The bare route answers with the very bytes the app sends (its gzip, as a browser gets it).
+  const wire = await rawGet(`${base}/api/catalogue`, { cookie: buyer.cookie, ...BROWSER })
+  if (wire.status !== 200) throw new Error(`catalogue (gzip): ${wire.status}`)
   const put = await fetch(`${base}/api/bench/fixed`, {
     method: 'PUT',
-    headers: { 'content-type': 'application/json' },
-    body: text,
+    headers: { 'content-type': 'application/octet-stream', 'x-bench-encoding': wire.encoding },
+    body: new Uint8Array(wire.bytes),
   })
   if (put.status !== 204) throw new Error(`bench fixed body: ${put.status}`)
-  const bare = await fetch(`${base}/api/bench/fixed`)
-  const bareBytes = (await bare.text()).length
+  const bare = await rawGet(`${base}/api/bench/fixed`, BROWSER)
   const app = () =>
-    cannon({ url: `${base}/api/catalogue`, connections: 50, headers: { cookie: buyer.cookie } })
-  const fixed = () => cannon({ url: `${base}/api/bench/fixed`, connections: 50 })
+    cannon({ url: `${base}/api/catalogue`, connections: 50, headers: { cookie: buyer.cookie, ...BROWSER } })
+  const fixed = () => cannon({ url: `${base}/api/bench/fixed`, connections: 50, headers: BROWSER })
   await cannon({
     url: `${base}/api/catalogue`,
     connections: 50,
-    headers: { cookie: buyer.cookie },
+    headers: { cookie: buyer.cookie, ...BROWSER },
     duration: 2,
   })
-  await cannon({ url: `${base}/api/bench/fixed`, connections: 50, duration: 2 })
+  await cannon({ url: `${base}/api/bench/fixed`, connections: 50, headers: BROWSER, duration: 2 })
   const items = (JSON.parse(text) as { items: unknown[] }).items.length
-  return { items, bytes: text.length, bareBytes, ...(await sideBySide(app, fixed)) }
+  return {
+    items,
+    bytes: text.length,
+    wireBytes: wire.bytes.length,
+    encoding: wire.encoding,
+    bareBytes: bare.bytes.length,
+    ...(await sideBySide(app, fixed)),
+  }
 }
 
 async function benchOrders(base: string, buyers: Session[], facts: ScenarioFacts) {
@@ -160,7 +193,19 @@ async function benchOrders(base: string, buyers: Session[], facts: ScenarioFacts
           { productId: b, cases: 2 },
         ]
   }
-  const app = () =>
+  // Each order's e-mails go out after its answer. A round ends when they have all gone, and its
+  // rate counts that wait: orders per second sustained, e-mails included, and the next round
+  // (the bare one, say) does not run beside the app's mail.
+  const drainMs: number[] = []
+  const drained = async (run: Run): Promise<Run> => {
+    const r = await fetch(`${base}/api/bench/drain-mail`, { method: 'POST' })
+    const { waitedMs, left } = (await r.json()) as { waitedMs: number; left: number }
+    if (left > 0) throw new Error(`${left} e-mails still going out after two minutes`)
+    drainMs.push(waitedMs)
+    return { ...run, okRps: (run.okRps * ROUND_S) / (ROUND_S + waitedMs / 1000) }
+  }
+  const app = async () => drained(await placeThroughApp())
+  const placeThroughApp = () =>
     cannon({
       url: base,
       connections: 20,
@@ -217,7 +262,8 @@ async function benchOrders(base: string, buyers: Session[], facts: ScenarioFacts
       ],
     })
   const result = await sideBySide(app, bare)
-  return { ...result, acceptedApp: accepted, acceptedBare: bareAccepted }
+  log(`  (the app's e-mails took ${drainMs.map((ms) => `${ms} ms`).join(', ')} to go out after its rounds)`)
+  return { ...result, mailDrainMs: drainMs, acceptedApp: accepted, acceptedBare: bareAccepted }
 }
 
 /** After the placing run: no balance below zero, the ledger adds up, every accepted order is there whole. */
@@ -309,7 +355,7 @@ async function benchOrderLists(base: string, history: Session, owner: Session, f
     cannon({
       url: base,
       connections,
-      headers: { cookie: history.cookie },
+      headers: { cookie: history.cookie, ...BROWSER },
       requests: [
         {
           method: 'GET',
@@ -329,7 +375,7 @@ async function benchOrderLists(base: string, history: Session, owner: Session, f
     cannon({
       url: base,
       connections,
-      headers: { cookie: owner.cookie },
+      headers: { cookie: owner.cookie, ...BROWSER },
       requests: [
         {
           method: 'GET',
@@ -395,7 +441,7 @@ function startServer(serverFile: string, env: Record<string, string>, logFile: s
   const out = fs.openSync(logFile, 'w')
   const profDir = path.join(ROOT, 'bench', 'profiles')
   const prof = process.env.BENCH_CPU_PROF === '1' ? ['--cpu-prof', `--cpu-prof-dir=${profDir}`] : []
-  return spawn(process.execPath, [...prof, serverFile], {
+  return spawn(process.execPath, [...SERVER_NODE_FLAGS, ...prof, serverFile], {
     cwd: ROOT,
     stdio: ['ignore', out, out],
     env: { ...process.env, ...env },
@@ -510,10 +556,13 @@ async function main() {
     }
     // The highest resident set seen during each part (sampled), to tell which part needs the memory.
     const phasePeakMb: Record<string, number> = {}
+    // And what the process holds at the end of each part, by kind (heap, buffers).
+    const phaseEndMemory: Record<string, unknown> = {}
     const phase = async <T>(name: string, work: () => Promise<T>): Promise<T> => {
       peakSampled = 0
       const out = await work()
       phasePeakMb[name] = Math.round(Math.max(peakSampled, memoryOf(pid)?.rssMb ?? 0))
+      phaseEndMemory[name] = await (await fetch(`${base}/api/bench/memory`)).json()
       return out
     }
     if (ONLY_ORDERS) {
@@ -527,6 +576,7 @@ async function main() {
           app: orders.app,
           bare: orders.bare,
           ratio: orders.ratio,
+          mailDrainMs: orders.mailDrainMs,
           acceptedApp: orders.acceptedApp.length,
           acceptedBare: orders.acceptedBare.length,
           verified,
@@ -647,6 +697,8 @@ async function main() {
       catalogue: {
         items: catalogue.items,
         bytes: catalogue.bytes,
+        wireBytes: catalogue.wireBytes,
+        encoding: catalogue.encoding,
         bareBytes: catalogue.bareBytes,
         app: catalogue.app,
         bare: catalogue.bare,
@@ -656,6 +708,7 @@ async function main() {
         app: orders.app,
         bare: orders.bare,
         ratio: orders.ratio,
+        mailDrainMs: orders.mailDrainMs,
         acceptedApp: orders.acceptedApp.length,
         acceptedBare: orders.acceptedBare.length,
         verified,
@@ -667,6 +720,7 @@ async function main() {
         vmHwmMb: mem?.peakMb ?? null,
         sampledPeakRssMb: peakSampled,
         sampledPeakByPartMb: phasePeakMb,
+        atEndOfPart: phaseEndMemory,
       },
       goals,
       seconds: (Date.now() - started) / 1000,

@@ -21,7 +21,10 @@ export const LoginSchema = z.object({
   email: EmailSchema,
   password: z
     .string({ error: 'Enter your password.' })
-    .check(z.minLength(1, 'Enter your password.'), z.maxLength(200, 'A password has at most 200 characters.')),
+    .check(
+      z.minLength(1, 'Enter your password.'),
+      z.maxLength(200, 'A password has at most 200 characters.'),
+    ),
 })
 export type LoginInput = z.infer<typeof LoginSchema>
 
@@ -39,7 +42,9 @@ export type SetPasswordInput = z.infer<typeof SetPasswordSchema>
 /** The client form adds a confirmation field that never leaves the browser. */
 export const SetPasswordFormSchema = z
   .object({ password: NewPasswordSchema, confirm: z.string() })
-  .check(z.refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' }))
+  .check(
+    z.refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' }),
+  )
 
 export const SessionUserSchema = z.object({
   id: z.number().check(z.int()),
@@ -63,4 +68,6 @@ export type ChangePasswordInput = z.infer<typeof ChangePasswordSchema>
 
 export const ChangePasswordFormSchema = z
   .extend(ChangePasswordSchema, { confirm: z.string() })
-  .check(z.refine((v) => v.newPassword === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' }))
+  .check(
+    z.refine((v) => v.newPassword === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' }),
+  )

@@ -3,9 +3,11 @@
  * a ratio measured side by side. Mounted only when LC_BENCH=1 (server/app.ts), never in a normal
  * run: they take no session, no CSRF token and no rights. Each one does the least the matching
  * product route must do:
- * - `GET /api/bench/fixed`: a fixed JSON body (set once with `PUT`, the size of the catalogue);
+ * - `GET /api/bench/fixed`: fixed bytes (set once with `PUT`: the catalogue's answer as sent, gzip and all);
  * - `POST /api/bench/order`: the placing transaction's row locks and inserts, straight through pg;
- * - `GET /api/bench/invoice-pdf/:id`: the invoice's document definition, built once, rendered by pdfmake.
+ * - `GET /api/bench/invoice-pdf/:id`: the invoice's document definition, built once, rendered by pdfmake;
+ * - `GET /api/bench/memory`: the process's memory by kind (heap, buffers), to tell what a peak is made of;
+ * - `POST /api/bench/drain-mail`: waits until the e-mails of the orders placed so far have gone out.
  */
 import express, { Router } from 'express'
 import pg from 'pg'
@@ -13,6 +15,7 @@ import type { TDocumentDefinitions } from 'pdfmake/interfaces.js'
 import { env } from '@server/config/env'
 import { renderPdf } from '@server/lib/pdf'
 import { requireInvoice } from '@server/modules/invoices/invoices.service'
+import { drainMail, mailBacklog } from '@server/modules/invoices/mail-queue'
 import { getSettings } from '@server/modules/settings/settings.service'
 import { invoiceDocument } from '@templates/pdf/invoice'
 
@@ -143,21 +146,41 @@ async function bareOrder(pool: pg.Pool, o: BareOrder): Promise<{ status: number;
 export function benchRoutes() {
   const r = Router()
   const pool = new pg.Pool({ connectionString: env.DATABASE_URL, max: env.DB_POOL_MAX })
-  let fixed: unknown = { items: [] }
+  let fixed: { bytes: Buffer; encoding: string } = {
+    bytes: Buffer.from('{"items":[]}'),
+    encoding: 'identity',
+  }
   const pdfDocs = new Map<number, TDocumentDefinitions>()
 
-  r.put('/fixed', express.json({ limit: '8mb' }), (req, res) => {
-    fixed = req.body
+  r.put('/fixed', express.raw({ type: () => true, limit: '8mb' }), (req, res) => {
+    fixed = { bytes: req.body as Buffer, encoding: req.get('x-bench-encoding') ?? 'identity' }
     res.status(204).end()
   })
   r.get('/fixed', (_req, res) => {
-    res.json(fixed)
+    res.type('application/json').set('Content-Encoding', fixed.encoding).send(fixed.bytes)
   })
   r.post('/order', express.json(), async (req, res) => {
     const out = await bareOrder(pool, req.body as BareOrder)
     res
       .status(out.status)
       .json(out.orderId ? { order: { id: out.orderId } } : { error: { code: 'insufficient_stock' } })
+  })
+  r.get('/memory', (_req, res) => {
+    const mb = (n: number) => Math.round((n / 1024 / 1024) * 10) / 10
+    const m = process.memoryUsage()
+    res.json({
+      rssMb: mb(m.rss),
+      heapTotalMb: mb(m.heapTotal),
+      heapUsedMb: mb(m.heapUsed),
+      externalMb: mb(m.external),
+      arrayBuffersMb: mb(m.arrayBuffers),
+      mailBacklog: mailBacklog(),
+    })
+  })
+  r.post('/drain-mail', async (_req, res) => {
+    const t0 = performance.now()
+    const left = await drainMail(120_000)
+    res.json({ waitedMs: Math.round(performance.now() - t0), left })
   })
   r.get('/invoice-pdf/:id', async (req, res) => {
     const id = Number(req.params.id)
