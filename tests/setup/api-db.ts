@@ -3,7 +3,7 @@
  * server modules read at import. Runs before the test file imports anything from server/.
  */
 import { randomBytes } from 'node:crypto'
-import { afterAll, inject } from 'vitest'
+import { afterAll, afterEach, inject } from 'vitest'
 import { createTestDatabase } from './test-db'
 
 const services = inject('services')
@@ -26,6 +26,19 @@ Object.assign(process.env, {
   CARD_API_HOST: '127.0.0.1',
   CARD_API_PORT: String(services.cardPort),
   CARD_API_PROTOCOL: 'http',
+})
+
+// pg warns (once per process) when a query is sent on a connection still busy with another, as
+// Promise.all over one transaction's queries does; pg 9 will refuse it. Any such warning fails
+// the test that was running.
+let pgWarnings: string[] = []
+process.on('warning', (w) => {
+  if (w.name === 'DeprecationWarning' && w.message.includes('pg@9')) pgWarnings.push(w.message)
+})
+afterEach(() => {
+  const seen = pgWarnings
+  pgWarnings = []
+  if (seen.length > 0) throw new Error(`pg warned: ${seen[0]}`)
 })
 
 afterAll(async () => {

@@ -14,7 +14,7 @@ import type { Transaction } from 'sequelize'
 
 /**
  * A body, its ETag (hashed once when the body is made, not on every answer) and its gzip encoding
- * (compressed once too: 300 products make about 115 KB of JSON and 15 KB gzipped, and
+ * (compressed once too: 300 products make about 115 KB of JSON and 7 KB gzipped, and
  * compressing on every answer would cost more than everything else the route does).
  */
 export type CachedBody = { json: string; etag: string; gzip: Buffer }

@@ -136,8 +136,16 @@ export async function findInvoice(
     transaction,
   })
   if (!r) return null
-  const q = <T extends object>(sql: string, b: unknown[]) =>
-    sequelize.query<T>(sql, { bind: b, type: QueryTypes.SELECT, transaction })
+  // Outside a transaction the five reads run side by side on pool connections; inside one they
+  // share its connection, where pg wants one query at a time, so they are chained.
+  let inTurn: Promise<unknown> = Promise.resolve()
+  const q = <T extends object>(sql: string, b: unknown[]): Promise<T[]> => {
+    const run = () => sequelize.query<T>(sql, { bind: b, type: QueryTypes.SELECT, transaction })
+    if (!transaction) return run()
+    const next = inTurn.then(run)
+    inTurn = next.catch(() => undefined)
+    return next
+  }
   const [lines, payments, related, shipment, reminders] = await Promise.all([
     q<{
       id: number

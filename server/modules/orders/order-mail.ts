@@ -1,4 +1,3 @@
-import { QueryTypes } from 'sequelize'
 import {
   orderCancelledEmail,
   orderConfirmedEmail,
@@ -8,7 +7,7 @@ import {
 } from '@templates/email/orders'
 import type { Email } from '@templates/email/layout'
 import { env } from '@server/config/env'
-import { sequelize } from '@server/db/sequelize'
+import { selectRows } from '@server/db/sequelize'
 import { logger } from '@server/lib/logger'
 import { sendMail } from '@server/lib/mailer'
 import type { OrderDto } from '@shared/schemas/orders'
@@ -32,7 +31,7 @@ async function recipientsOf(
   orderId: number,
   withOwners: boolean,
 ): Promise<{ buyer: Recipient | null; owners: Recipient[] }> {
-  const rows = await sequelize.query<Recipient & { who: 'buyer' | 'owner' }>(
+  const rows = await selectRows<Recipient & { who: 'buyer' | 'owner' }>(
     `SELECT 'buyer' AS who,
             CASE WHEN u.id IS NULL THEN s.contact_email ELSE u.email END AS email,
             CASE WHEN u.id IS NULL THEN s.contact_name ELSE u.name END AS name, 0 AS sort
@@ -42,7 +41,7 @@ async function recipientsOf(
      UNION ALL
      SELECT 'owner', email, name, id FROM users WHERE $2 AND role = 'owner' AND active
      ORDER BY sort`,
-    { bind: [orderId, withOwners], type: QueryTypes.SELECT },
+    [orderId, withOwners],
   )
   const one = (r: Recipient) => ({ email: r.email, name: r.name })
   const buyer = rows.find((r) => r.who === 'buyer')

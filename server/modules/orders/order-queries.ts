@@ -2,7 +2,7 @@ import { QueryTypes } from 'sequelize'
 import type { Transaction } from 'sequelize'
 import type { OrderStatus } from '@shared/domain/orders/order-status'
 import type { OrderDto, OrderLineDto, OrderListQuery } from '@shared/schemas/orders'
-import { sequelize } from '@server/db/sequelize'
+import { selectRows, sequelize } from '@server/db/sequelize'
 import { awaitingPaymentSql } from '@server/modules/invoices/prepay-payment'
 import { getSettings } from '@server/modules/settings/settings.service'
 
@@ -79,7 +79,7 @@ const ORDER_SELECT = `
 
 /** Every line of these orders with its allocations' lot codes, oldest batch first: one query. */
 async function linesOf(orderIds: number[], transaction?: Transaction): Promise<Map<number, LineRow[]>> {
-  const rows = await sequelize.query<LineRow>(
+  const rows = await selectRows<LineRow>(
     `SELECT l.id, l.order_id, l.product_id, l.sku, l.name, l.cases, l.case_pack, l.bars, l.unit_price_cents,
             l.line_total_cents, l.preorder, l.promised_date,
             COALESCE(json_agg(json_build_object('batchId', a.batch_id, 'lotCode', b.lot_code, 'bars', a.bars)
@@ -90,7 +90,8 @@ async function linesOf(orderIds: number[], transaction?: Transaction): Promise<M
       WHERE l.order_id = ANY($1::int[]) AND l.removed_at IS NULL
       GROUP BY l.id
       ORDER BY l.order_id, l.sort_order, l.id`,
-    { bind: [orderIds], type: QueryTypes.SELECT, transaction },
+    [orderIds],
+    transaction,
   )
   const byOrder = new Map<number, LineRow[]>()
   for (const r of rows) {
@@ -191,11 +192,7 @@ export async function findOrder(
 ): Promise<OrderDto | null> {
   const { where, bind, add } = scope(viewer, {})
   add((n) => `o.id = ${n}`, id)
-  const rows = await sequelize.query<OrderRow>(`${ORDER_SELECT} WHERE ${where.join(' AND ')}`, {
-    bind,
-    type: QueryTypes.SELECT,
-    transaction,
-  })
+  const rows = await selectRows<OrderRow>(`${ORDER_SELECT} WHERE ${where.join(' AND ')}`, bind, transaction)
   return (await dtos(rows, viewer, transaction))[0] ?? null
 }
 

@@ -7,7 +7,7 @@ import { compareIso, isoToday, yearOf } from '@shared/domain/dates/dates'
 import { formatOrderNumber } from '@shared/domain/orders/order-number'
 import { applyAction } from '@shared/domain/orders/order-status'
 import type { OrderDto, PlaceOrder, StockShortfallDto } from '@shared/schemas/orders'
-import { sequelize } from '@server/db/sequelize'
+import { selectRows, sequelize } from '@server/db/sequelize'
 import { AppError } from '@server/lib/app-error'
 import { readyBatchesForUpdate } from '@server/modules/availability/availability.service'
 import type { ReadyBatch } from '@server/modules/availability/availability.service'
@@ -44,9 +44,10 @@ export function requestHash(input: PlaceOrder): string {
 }
 
 async function orderByKey(shopId: number, key: string, transaction?: Transaction) {
-  const [row] = await sequelize.query<{ id: number; request_hash: string | null }>(
+  const [row] = await selectRows<{ id: number; request_hash: string | null }>(
     'SELECT id, request_hash FROM orders WHERE shop_id = $1 AND idempotency_key = $2',
-    { bind: [shopId, key], type: QueryTypes.SELECT, transaction },
+    [shopId, key],
+    transaction,
   )
   return row ?? null
 }
