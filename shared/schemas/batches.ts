@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import { WRITE_OFF_REASONS } from '@shared/domain/stock/ledger'
 import type { MoveKind, WriteOffReason } from '@shared/domain/stock/ledger'
 import { compareIso, isValidIsoDate, isoToday } from '@shared/domain/dates/dates'
@@ -204,8 +205,8 @@ export const StockMoveBodySchema = z.object(stockMoveFields).superRefine(checkMo
 export type StockMoveBody = z.infer<typeof StockMoveBodySchema>
 export type StockMoveFormValues = z.input<typeof StockMoveBodySchema>
 
-export const BatchIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
-export const LotIdParamsSchema = z.object({ lotId: z.coerce.number().int().positive().max(2_147_483_647) })
+export const BatchIdParamsSchema = z.object({ id: recordId('Not a batch.') })
+export const LotIdParamsSchema = z.object({ lotId: recordId('Not an ingredient lot.') })
 
 const optionalId = z
   .union([z.literal(''), z.coerce.number().int().positive().max(2_147_483_647)])

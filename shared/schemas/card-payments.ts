@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import { parseMoneyToCents } from '@shared/domain/money/money'
 
 /** `GET /api/card-payments/status`: whether invoices can be paid by card here. */
@@ -21,11 +22,7 @@ export type CardCheckoutStateDto = {
 }
 
 export const CardCheckoutParamsSchema = z.object({
-  id: z.coerce
-    .number<string | number>({ error: 'Not an invoice.' })
-    .int('Not an invoice.')
-    .positive('Not an invoice.')
-    .max(2_147_483_647, 'Not an invoice.'),
+  id: recordId('Not an invoice.'),
   sessionId: z
     .string()
     .trim()
@@ -68,18 +65,10 @@ export const RefundFormSchema = z
 export type RefundFormInput = z.input<typeof RefundFormSchema>
 
 export const PaymentIdParamsSchema = z.object({
-  id: z.coerce
-    .number<string | number>({ error: 'Not a payment.' })
-    .int('Not a payment.')
-    .positive('Not a payment.')
-    .max(2_147_483_647, 'Not a payment.'),
+  id: recordId('Not a payment.'),
 })
 export const ProblemIdParamsSchema = z.object({
-  id: z.coerce
-    .number<string | number>({ error: 'Not a problem.' })
-    .int('Not a problem.')
-    .positive('Not a problem.')
-    .max(2_147_483_647, 'Not a problem.'),
+  id: recordId('Not a problem.'),
 })
 
 export type RefundDto = {

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import { isValidIsoDate, isoToday, compareIso } from '@shared/domain/dates/dates'
 import { LYE_PURITY_RANGE, sapKohToNaoh, sapNaohToKoh } from '@shared/domain/lye/lye'
 import { formatCents, parseMoneyToCents, roundHalfUp } from '@shared/domain/money/money'
@@ -313,11 +314,7 @@ export const IngredientListQuerySchema = z.object({
 export type IngredientListQuery = z.output<typeof IngredientListQuerySchema>
 
 export const IdParamsSchema = z.object({
-  id: z.coerce
-    .number({ error: 'Not a record number.' })
-    .int('Not a record number.')
-    .positive('Not a record number.')
-    .max(2_147_483_647, 'Not a record number.'),
+  id: recordId('Not a record number.'),
 })
 
 export type IngredientRow = {

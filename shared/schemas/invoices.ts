@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import type { InvoiceStatus, PaymentTerms } from '@shared/domain/invoices/terms'
 import { isValidIsoDate } from '@shared/domain/dates/dates'
 import type { PaymentMethod } from '@shared/schemas/payments'
@@ -25,11 +26,7 @@ export const INVOICE_KIND_LABELS: Record<InvoiceKind, string> = {
 }
 
 export const InvoiceIdParamsSchema = z.object({
-  id: z.coerce
-    .number<string | number>({ error: 'Not an invoice.' })
-    .int('Not an invoice.')
-    .positive('Not an invoice.')
-    .max(2_147_483_647, 'Not an invoice.'),
+  id: recordId('Not an invoice.'),
 })
 
 const list = (v: unknown) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v)

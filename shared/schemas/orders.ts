@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import { ORDER_STATUSES } from '@shared/domain/orders/order-status'
 
 export const PO_NUMBER_MAX = 40
@@ -137,11 +138,7 @@ export type OrderDto = {
 export type OrderListDto = { items: OrderDto[]; page: number; pageSize: number; total: number }
 
 export const OrderIdParamsSchema = z.object({
-  id: z.coerce
-    .number({ error: 'Not an order number.' })
-    .int('Not an order number.')
-    .positive('Not an order number.')
-    .max(2_147_483_647, 'Not an order number.'),
+  id: recordId('Not an order number.'),
 })
 
 const idList = (v: unknown) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v)
@@ -207,11 +204,7 @@ export const CartLineInputSchema = z.object({
 export type CartLineInput = z.input<typeof CartLineInputSchema>
 
 export const CartProductParamsSchema = z.object({
-  productId: z.coerce
-    .number({ error: 'Not a product.' })
-    .int('Not a product.')
-    .positive('Not a product.')
-    .max(2_147_483_647, 'Not a product.'),
+  productId: recordId('Not a product.'),
 })
 
 export type PriceBreakDto = { minCases: number; unitPriceCents: number }

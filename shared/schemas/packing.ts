@@ -1,15 +1,12 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import type { OrderStatus } from '@shared/domain/orders/order-status'
 
 // The packer's side of an order: the queue, claiming, the pick list and recording what was packed.
 // Nothing here carries a price or a cost: packers never see them.
 
 export const PackingOrderParamsSchema = z.object({
-  id: z.coerce
-    .number<string | number>({ error: 'Not an order number.' })
-    .int('Not an order number.')
-    .positive('Not an order number.')
-    .max(2_147_483_647, 'Not an order number.'),
+  id: recordId('Not an order number.'),
 })
 
 /** `POST /api/orders/:id/claim`; an owner may take over an order another person has claimed. */

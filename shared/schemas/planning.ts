@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import { compareIso, isValidIsoDate } from '@shared/domain/dates/dates'
 
 const whole = (what: string, min: number, max: number) =>
@@ -43,11 +44,7 @@ export const CreatePlannedPourSchema = z.object({
 export type CreatePlannedPourInput = z.infer<typeof CreatePlannedPourSchema>
 
 export const PlannedPourIdParamsSchema = z.object({
-  id: z.coerce
-    .number<string | number>({ error: 'Not a planned pour.' })
-    .int('Not a planned pour.')
-    .positive('Not a planned pour.')
-    .max(2_147_483_647, 'Not a planned pour.'),
+  id: recordId('Not a planned pour.'),
 })
 
 /** The pour lead time on the settings screen: days to spare between the cure's end and run-out. */

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import { MARGIN_RANGE, validatePriceBreaks } from '@shared/domain/pricing/pricing'
 import type { PriceBreakProblemCode, PriceLevel } from '@shared/domain/pricing/pricing'
 
@@ -23,7 +24,7 @@ export const TierCreateSchema = z.object(tierFields)
 export type TierCreateInput = z.output<typeof TierCreateSchema>
 export const TierUpdateSchema = z.object(tierFields).partial()
 export type TierUpdateInput = z.output<typeof TierUpdateSchema>
-export const TierIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
+export const TierIdParamsSchema = z.object({ id: recordId('Not a price tier.') })
 
 export type TierRow = {
   id: number
@@ -73,8 +74,8 @@ export const PriceBreaksSchema = z
 export type PriceBreaksInput = z.output<typeof PriceBreaksSchema>
 
 export const PricingParamsSchema = z.object({
-  productId: z.coerce.number().int().positive().max(2_147_483_647),
-  tierId: z.coerce.number().int().positive().max(2_147_483_647),
+  productId: recordId('Not a product.'),
+  tierId: recordId('Not a price tier.'),
 })
 
 export const AcceptSuggestionsSchema = z

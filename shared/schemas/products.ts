@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import { GTIN_LENGTHS, gtinCheckDigit, isValidGtin } from '@shared/domain/gtin/gtin'
 
 /** Capitals and digits in groups joined by single hyphens, at most 12 characters: LAV, HNY-XL. */
@@ -108,7 +109,7 @@ export const ProductUpdateSchema = z
 export type ProductUpdateInput = z.output<typeof ProductUpdateSchema>
 export const NET_OVER_CUT_MESSAGE = NET_OVER_CUT
 
-export const ProductIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
+export const ProductIdParamsSchema = z.object({ id: recordId('Not a product.') })
 
 export const DeclarationConfirmSchema = z.object({
   text: z

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import { oilPercentagesAddUp, oilPercentagesSum } from '@shared/domain/batch-sheet/batch-sheet'
 import { LYE_CONCENTRATION_RANGE, SUPERFAT_RANGE, WATER_TO_LYE_RATIO_RANGE } from '@shared/domain/lye/lye'
 import type { CostShare } from '@shared/domain/costing/costing'
@@ -135,7 +136,7 @@ export const RecipeInputSchema = z
 export type RecipeInput = z.output<typeof RecipeInputSchema>
 export type RecipeFormValues = z.input<typeof RecipeInputSchema>
 
-export const RecipeIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
+export const RecipeIdParamsSchema = z.object({ id: recordId('Not a recipe.') })
 
 export const RecipeListQuerySchema = z.object({
   archived: z

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import { isValidIsoDate } from '@shared/domain/dates/dates'
 
 export const SHOP_STATUSES = ['applied', 'active', 'on_hold', 'closed', 'declined'] as const
@@ -301,7 +302,7 @@ export type InviteBuyerInput = z.output<typeof InviteBuyerSchema>
 export const CertificateFieldsSchema = z.object({ certificateExpiresOn: OptionalDateSchema.optional() })
 export type CertificateFieldsInput = z.output<typeof CertificateFieldsSchema>
 
-export const ShopIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
+export const ShopIdParamsSchema = z.object({ id: recordId('Not a shop.') })
 export const ShopListQuerySchema = z.object({
   status: z.enum(SHOP_STATUSES, { error: `Use one of: ${SHOP_STATUSES.join(', ')}.` }).optional(),
 })

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { recordId } from '@shared/schemas/record-id'
 import { ROLES } from '@shared/permissions'
 import { EmailSchema } from '@shared/schemas/auth'
 
@@ -21,7 +22,7 @@ export const UpdateUserSchema = z.object({
 })
 export type UpdateUserInput = z.infer<typeof UpdateUserSchema>
 
-export const UserIdParamsSchema = z.object({ id: z.coerce.number().int().positive().max(2_147_483_647) })
+export const UserIdParamsSchema = z.object({ id: recordId('Not a user.') })
 
 export type UserRow = {
   id: number

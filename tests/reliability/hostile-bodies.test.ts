@@ -30,11 +30,17 @@ const table = routeTable(app)
 const writes = table.filter((r) => WRITE_METHODS.has(r.method))
 
 /**
- * Path parameters no record has: not numbers, out of PostgreSQL's integer range, encoded
- * traversal, SQL. (`0x10` is left out: the id schemas coerce it to 16, the same record as `/16`.)
+ * Path parameters no record has: not numbers, numbers not written as a path writes an id (a
+ * plain coercion reads `0x10`, `16.0`, `+16`, ` 16` and `016` as record 16), out of PostgreSQL's
+ * integer range, encoded traversal, SQL.
  */
 const HOSTILE_PARAMS = [
   'abc',
+  '0x10',
+  '16.0',
+  '+16',
+  '%2016',
+  '016',
   '-1',
   '0',
   '1.5',
