@@ -6,6 +6,8 @@ import { createApp } from '@server/app'
 import { logger } from '@server/lib/logger'
 import { closeMail } from '@server/lib/mailer'
 import { startReminderJob } from '@server/modules/payments/reminders.job'
+import { startMailOutbox } from '@server/modules/mail/outbox'
+import { drainMail } from '@server/modules/invoices/mail-queue'
 import { schedulePreorderAllocation } from '@server/modules/orders/preorders.service'
 
 /** Runs the API and the built client on one port. Migrations run first; demo data is the start script's job. */
@@ -22,6 +24,9 @@ async function main() {
   const stopReminders = env.JOBS ? startReminderJob() : () => {}
   // Pre-orders get their bars the day their batch is ready: now, then once each studio day.
   const stopPreorders = env.JOBS ? schedulePreorderAllocation() : () => {}
+  // E-mails kept in the outbox and not yet sent (a relay that refused them, or a process that
+  // ended before it could): soon after start, then every minute.
+  const stopOutbox = env.JOBS ? startMailOutbox() : () => {}
 
   let stopping = false
   const stop = (signal: string) => {
@@ -30,9 +35,13 @@ async function main() {
     logger.info('stopping', { signal })
     stopReminders()
     stopPreorders()
+    stopOutbox()
     server.close(() => {
-      closeMail()
-      void closeDb().then(() => process.exit(0))
+      // E-mails going out get a moment to finish; any that do not stay in the outbox for next time.
+      void drainMail(3000)
+        .then(() => closeMail())
+        .then(() => closeDb())
+        .then(() => process.exit(0))
     })
     server.closeAllConnections()
     setTimeout(() => process.exit(0), 5000).unref()

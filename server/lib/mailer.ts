@@ -1,3 +1,4 @@
+import { AsyncLocalStorage } from 'node:async_hooks'
 import nodemailer from 'nodemailer'
 import type { Attachment } from 'nodemailer/lib/mailer'
 import type { Email } from '@templates/email/layout'
@@ -21,6 +22,20 @@ const transport = nodemailer.createTransport({
 
 export type OutgoingMail = Email & { to: string | string[]; attachments?: Attachment[]; replyTo?: string }
 
+type Failures = { count: number; lastError?: string }
+const failuresSeen = new AsyncLocalStorage<Failures>()
+
+/**
+ * Runs `work` (which may send any number of e-mails) and counts the sends that failed inside it,
+ * however deep, so that the outbox can keep a job for another try without every sender having to
+ * report back.
+ */
+export async function countMailFailures(work: () => Promise<unknown>): Promise<Failures> {
+  const seen: Failures = { count: 0 }
+  await failuresSeen.run(seen, work)
+  return seen
+}
+
 /** Sends one e-mail; failures are logged and reported to the caller as false, never thrown. */
 export async function sendMail(mail: OutgoingMail): Promise<boolean> {
   try {
@@ -36,6 +51,11 @@ export async function sendMail(mail: OutgoingMail): Promise<boolean> {
     return true
   } catch (err) {
     logger.warn('mail not sent', { to: mail.to, subject: mail.subject, error: (err as Error).message })
+    const seen = failuresSeen.getStore()
+    if (seen) {
+      seen.count += 1
+      seen.lastError = (err as Error).message
+    }
     return false
   }
 }

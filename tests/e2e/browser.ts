@@ -91,7 +91,7 @@ export async function axeViolations(page: Page) {
 /** JSON calls with the page's own session (and its CSRF token for writes). */
 export async function call(
   page: Page,
-  method: 'GET' | 'POST',
+  method: 'GET' | 'POST' | 'PUT',
   url: string,
   data?: unknown,
   headers: Record<string, string> = {},

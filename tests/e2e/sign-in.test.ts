@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
 import { DEMO } from '@tests/factories/api-client'
 import { linkIn, waitForMail } from '@tests/factories/mail'
-import { axeViolations, baseUrl, launch, newPage, screenshot, signIn } from './browser'
+import { axeViolations, baseUrl, call, launch, newPage, screenshot, signIn } from './browser'
 
 let browser: Browser
 beforeAll(async () => {
@@ -105,6 +105,11 @@ describe('password reset through the e-mail', () => {
     await page.getByLabel('Password').fill('harbor-lane-new-2026')
     await page.getByRole('button', { name: 'Sign in' }).click()
     await page.waitForURL(/\/shop$/)
+    // The other browser tests sign in as this buyer with the demo password: give it back.
+    await call(page, 'PUT', '/api/auth/password', {
+      currentPassword: 'harbor-lane-new-2026',
+      newPassword: DEMO.buyerB.password,
+    })
     await context.close()
   })
 })

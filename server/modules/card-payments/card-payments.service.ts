@@ -12,19 +12,15 @@ import type {
   RefundDto,
 } from '@shared/schemas/card-payments'
 import type { InvoiceDto } from '@shared/schemas/invoices'
-import { cardReceiptEmail, cardRefundEmail } from '@templates/email/card-payments'
-import type { Email } from '@templates/email/layout'
 import { env } from '@server/config/env'
 import { sequelize } from '@server/db/sequelize'
 import { AppError } from '@server/lib/app-error'
 import { logger } from '@server/lib/logger'
-import { sendMail } from '@server/lib/mailer'
 import { audit } from '@server/modules/audit/audit.service'
 import { studioToday } from '@server/modules/availability/availability.service'
 import { amountsOf } from '@server/modules/invoices/invoice-queries'
-import { orderRecipients } from '@server/modules/invoices/invoice-mail'
 import { requireInvoice } from '@server/modules/invoices/invoices.service'
-import { queueMail } from '@server/modules/invoices/mail-queue'
+import { keepMail } from '@server/modules/mail/outbox'
 import { getSettings } from '@server/modules/settings/settings.service'
 import { cardProvider, providerError, webhookSecret } from '@server/modules/card-payments/card-provider'
 
@@ -47,8 +43,6 @@ async function lockInvoice(id: number, t: Transaction): Promise<LockedInvoice | 
   )
   return inv
 }
-
-const buyerInvoicesLink = () => `${env.APP_URL}/shop/invoices`
 
 /** The app's own address for the buyer's return from the hosted page. */
 function returnUrl(invoiceId: number, outcome: 'paid' | 'cancelled') {
@@ -179,7 +173,6 @@ export async function handleWebhook(raw: unknown, signature: string | undefined)
     )
   }
 
-  let mail: (() => Promise<unknown>) | null = null
   const result = await sequelize.transaction(async (t): Promise<WebhookResult> => {
     const [inserted] = await sequelize.query<{ id: number }>(
       `INSERT INTO card_events (event_id, type, outcome) VALUES ($1, $2, 'ignored')
@@ -198,11 +191,10 @@ export async function handleWebhook(raw: unknown, signature: string | undefined)
     })
     if (outcome.kind === 'payment') {
       const { invoiceId, amountCents, reference, paidOn } = outcome
-      mail = () => sendReceipt(invoiceId, amountCents, reference, paidOn)
+      await keepMail([{ kind: 'card_receipt', invoiceId, amountCents, reference, paidOn }], t)
     }
     return { received: true, duplicate: false, outcome: outcome.kind }
   })
-  if (mail) queueMail(`card receipt ${event.id}`, mail)
   return result
 }
 
@@ -312,32 +304,6 @@ async function recordCompletedCheckout(
   return { kind: 'payment', invoiceId: inv.id, amountCents: receivedCents, reference, paidOn }
 }
 
-async function mailShop(invoice: InvoiceDto, build: (name: string, studioName: string) => Email) {
-  const [settings, recipients] = await Promise.all([getSettings(), orderRecipients(invoice.orderId)])
-  for (const to of recipients) {
-    await sendMail({
-      to: to.email,
-      replyTo: settings.studio.email || undefined,
-      ...build(to.name, settings.studio.name),
-    })
-  }
-}
-
-async function sendReceipt(invoiceId: number, amountCents: number, reference: string, paidOn: string) {
-  const invoice = await requireInvoice(invoiceId, { role: 'owner', shopId: null })
-  await mailShop(invoice, (name, studioName) =>
-    cardReceiptEmail({
-      name,
-      studioName,
-      invoice,
-      link: buyerInvoicesLink(),
-      amountCents,
-      paidOn,
-      reference,
-    }),
-  )
-}
-
 /**
  * `POST /api/payments/:id/refunds` (owner): gives back all or part of a card payment through the
  * service. The invoice row is locked while the service is asked, so two refunds of one payment
@@ -421,22 +387,14 @@ export async function refundPayment(
       },
       t,
     )
+    await keepMail(
+      [{ kind: 'card_refund', invoiceId: inv.id, amountCents: input.amountCents, reference: refund.id }],
+      t,
+    )
     return { id: row!.id, providerRefundId: refund.id }
   })
   const [refund] = await listRefunds({ refundId: refunded.id })
   const invoice = await requireInvoice(payment.invoice_id, { role: 'owner', shopId: null })
-  queueMail(`card refund ${refunded.providerRefundId}`, () =>
-    mailShop(invoice, (name, studioName) =>
-      cardRefundEmail({
-        name,
-        studioName,
-        invoice,
-        link: buyerInvoicesLink(),
-        amountCents: input.amountCents,
-        reference: refunded.providerRefundId,
-      }),
-    ),
-  )
   return { refund: refund!, invoice }
 }
 

@@ -24,7 +24,7 @@ import { takeInvoiceNumber } from '@server/modules/invoices/invoice-number'
 import { findInvoice, listInvoices } from '@server/modules/invoices/invoice-queries'
 import type { InvoiceViewer } from '@server/modules/invoices/invoice-queries'
 import { sendInvoiceMail } from '@server/modules/invoices/invoice-mail'
-import { queueMail } from '@server/modules/invoices/mail-queue'
+import { keepMail } from '@server/modules/mail/outbox'
 import { spreadsheetSafe } from '@server/modules/invoices/spreadsheet'
 
 export type InvoiceRef = { id: number; number: string; orderId: number; totalCents: number }
@@ -179,7 +179,7 @@ export async function raiseInvoiceForOrder(
     },
     t,
   )
-  if (opts.notify !== false) afterCommit(t, `invoice ${number}`, () => sendInvoiceMail(id, 'issued'))
+  if (opts.notify !== false) await keepMail([{ kind: 'invoice', invoiceId: id, reason: 'issued' }], t)
   return { id, number, orderId, totalCents: order.total_cents }
 }
 
@@ -196,11 +196,6 @@ function invoiceExists(orderNumber: string, existing: { id: number; number: stri
       },
     ],
   )
-}
-
-/** Mail that goes out once the transaction has committed (never for one that rolled back). */
-function afterCommit(t: Transaction, label: string, work: () => Promise<unknown>) {
-  t.afterCommit(() => queueMail(label, work))
 }
 
 /** `POST /api/orders/:id/invoice`: the owner raises an order's invoice by hand (after a void, say). */
@@ -270,7 +265,7 @@ async function voidLocked(
     },
     t,
   )
-  if (notify) afterCommit(t, `credit note ${number}`, () => sendInvoiceMail(note!.id, 'credit_note'))
+  if (notify) await keepMail([{ kind: 'invoice', invoiceId: note!.id, reason: 'credit_note' }], t)
   return { invoiceId: inv.id, creditNoteId: note!.id, creditNoteNumber: number }
 }
 

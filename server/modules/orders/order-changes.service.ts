@@ -13,7 +13,7 @@ import { recordStockMove } from '@server/modules/batches/stock-moves.service'
 import { addLinesToCart } from '@server/modules/cart/cart.service'
 import { sellableProducts } from '@server/modules/catalogue/catalogue.service'
 import { Order } from '@server/modules/orders/order.model'
-import { sendOrderMailsLater } from '@server/modules/orders/order-mail'
+import { keepMail } from '@server/modules/mail/outbox'
 import { price, pricingSettings, requireSellable } from '@server/modules/orders/order-pricing'
 import { findOrder } from '@server/modules/orders/order-queries'
 import type { OrderViewer } from '@server/modules/orders/order-queries'
@@ -99,8 +99,9 @@ export async function confirmOrder(id: number, actor: Actor, opts: ChangeOptions
     await audit({ userId: actor.userId, action: 'order.confirmed', entity: 'order', entityId: id }, t)
     // A prepay account is invoiced at confirmation; for any other account this writes nothing.
     await raiseInvoiceForOrder(id, t, { userId: actor.userId, notify: opts.notify })
+    if (opts.notify !== false)
+      await keepMail([{ kind: 'order', mail: { kind: 'confirmed', orderId: id } }], t)
   })
-  if (opts.notify !== false) sendOrderMailsLater([{ kind: 'confirmed', orderId: id }])
   return afterChange(id, actor)
 }
 
@@ -136,9 +137,13 @@ export async function cancelOrder(
       },
       t,
     )
+    if (opts.notify !== false) {
+      await keepMail(
+        [{ kind: 'order', mail: { kind: 'cancelled', orderId: id, byStudio: actor.role === 'owner' } }],
+        t,
+      )
+    }
   })
-  if (opts.notify !== false)
-    sendOrderMailsLater([{ kind: 'cancelled', orderId: id, byStudio: actor.role === 'owner' }])
   return afterChange(id, actor)
 }
 

@@ -8,12 +8,10 @@ import {
 import type { Email } from '@templates/email/layout'
 import { env } from '@server/config/env'
 import { selectRows } from '@server/db/sequelize'
-import { logger } from '@server/lib/logger'
 import { sendMail } from '@server/lib/mailer'
 import type { OrderDto } from '@shared/schemas/orders'
 import { findOrder } from '@server/modules/orders/order-queries'
 import { getSettings } from '@server/modules/settings/settings.service'
-import { trackMail } from '@server/modules/invoices/mail-queue'
 
 // Order e-mails go out after the transaction that changed the order has committed, so nobody is
 // told about an order that was rolled back. A mail that fails is logged by the mailer, never thrown.
@@ -109,20 +107,4 @@ export async function sendOrderMail(mail: OrderMail): Promise<void> {
       if (b) await send(buyer, preorderAllocatedEmail({ ...b, lineIds: new Set(mail.lineIds) }))
       return
   }
-}
-
-export async function sendOrderMails(mails: OrderMail[]): Promise<void> {
-  for (const m of mails) await sendOrderMail(m)
-}
-
-/**
- * Sends the mails without holding up the answer to the person who acted (a message takes a
- * round trip to the mail relay). Failures are logged, never thrown; `drainMail` waits for them.
- */
-export function sendOrderMailsLater(mails: OrderMail[]): void {
-  void trackMail(
-    sendOrderMails(mails).catch((err: unknown) => {
-      logger.warn('order mail not sent', { error: err instanceof Error ? err.message : String(err) })
-    }),
-  )
 }

@@ -16,8 +16,10 @@ import { invalidateCatalogue } from '@server/modules/catalogue/catalogue-cache'
 import { sellableProducts } from '@server/modules/catalogue/catalogue.service'
 import type { SellableProduct } from '@server/modules/catalogue/catalogue.service'
 import type { OrderPricing } from '@shared/domain/orders/order-pricing'
-import { sendOrderMailsLater } from '@server/modules/orders/order-mail'
+import { sendOrderMail } from '@server/modules/orders/order-mail'
 import type { OrderMail } from '@server/modules/orders/order-mail'
+import { keepMail, sendKept } from '@server/modules/mail/outbox'
+import type { KeptMail } from '@server/modules/mail/outbox'
 import {
   hasOverdueInvoices,
   price,
@@ -400,7 +402,7 @@ export async function placeOrder(args: {
   const productIds = input.lines.map((l) => l.productId)
 
   let outcome:
-    { orderId: number; mails: OrderMail[] } | { replayOf: { id: number; request_hash: string | null } }
+    { orderId: number; mails: KeptMail[] } | { replayOf: { id: number; request_hash: string | null } }
   try {
     outcome = await retryingTransaction(async (t) => {
       const shop = await orderingShop(shopId, t, true)
@@ -490,7 +492,11 @@ export async function placeOrder(args: {
       }
       // One e-mail to the buyer either way: an order confirmed as it is placed says so in its
       // placed e-mail (templates/email/orders.ts), rather than a second message the same second.
-      const mails: OrderMail[] = [{ kind: 'placed', orderId }]
+      const placed: OrderMail = { kind: 'placed', orderId }
+      const mails =
+        args.notify === false
+          ? []
+          : await keepMail([{ kind: 'order', mail: placed }], t, { sendAtCommit: false })
       return { orderId, mails }
     })
   } catch (err) {
@@ -502,9 +508,13 @@ export async function placeOrder(args: {
   }
   if ('replayOf' in outcome) return replay(outcome.replayOf, hash, shopId)
   const order = await findOrder(outcome.orderId, { role: 'buyer', shopId })
-  // Built and sent after the commit and after the answer is read: the buyer never waits for them.
-  // The placed e-mail shows the order just read (the buyer's view carries every price the studio's does).
-  if (args.notify !== false)
-    sendOrderMailsLater(outcome.mails.map((m) => (m.kind === 'placed' && order ? { ...m, order } : m)))
+  // Kept in the outbox by the transaction; sent after the commit and after the answer is read, so
+  // the buyer never waits for them. The placed e-mail shows the order just read (the buyer's view
+  // carries every price the studio's does).
+  sendKept(outcome.mails, (k) =>
+    k.job.kind === 'order' && k.job.mail.kind === 'placed' && order
+      ? () => sendOrderMail({ kind: 'placed', orderId: order.id, order })
+      : undefined,
+  )
   return { order: order!, created: true }
 }

@@ -10,8 +10,7 @@ import { logger } from '@server/lib/logger'
 import { audit } from '@server/modules/audit/audit.service'
 import { readyBatchesForUpdate, studioToday } from '@server/modules/availability/availability.service'
 import { recordStockMove } from '@server/modules/batches/stock-moves.service'
-import { sendOrderMailsLater } from '@server/modules/orders/order-mail'
-import type { OrderMail } from '@server/modules/orders/order-mail'
+import { keepMail } from '@server/modules/mail/outbox'
 import { retryingTransaction } from '@server/modules/orders/transactions'
 
 // Pre-orders ask for bars that are still curing. They reserve nothing until the batch is ready
@@ -141,7 +140,7 @@ export async function allocateDuePreorders(
           FOR UPDATE`,
       { type: QueryTypes.SELECT, transaction: t },
     )
-    if (locked.length === 0) return { allocated: [], waiting: 0, mails: [] as OrderMail[] }
+    if (locked.length === 0) return { allocated: [], waiting: 0 }
     // Read again under the locks: a cancel or an earlier run may have changed them meanwhile.
     const lines = await sequelize.query<WaitingLine & { number: string }>(
       `SELECT l.id, l.order_id, l.product_id, l.bars, l.promised_date, o.number
@@ -228,14 +227,15 @@ export async function allocateDuePreorders(
         t,
       )
     }
-    const mails: OrderMail[] = [...byOrder].map(([orderId, lineIds]) => ({
-      kind: 'preorder_allocated',
-      orderId,
-      lineIds,
-    }))
-    return { allocated, waiting: stillWaiting.length, mails }
+    await keepMail(
+      [...byOrder].map(([orderId, lineIds]) => ({
+        kind: 'order' as const,
+        mail: { kind: 'preorder_allocated' as const, orderId, lineIds },
+      })),
+      t,
+    )
+    return { allocated, waiting: stillWaiting.length }
   })
-  sendOrderMailsLater(run.mails)
   return { allocated: run.allocated, waiting: run.waiting }
 }
 

@@ -7,13 +7,13 @@ import { audit } from '@server/modules/audit/audit.service'
 import { studioToday } from '@server/modules/availability/availability.service'
 import { recordStockMove } from '@server/modules/batches/stock-moves.service'
 import { raiseInvoiceForOrder } from '@server/modules/invoices/invoices.service'
-import { holdMail, queueMail } from '@server/modules/invoices/mail-queue'
+import { holdMail } from '@server/modules/invoices/mail-queue'
+import { keepMail } from '@server/modules/mail/outbox'
 import { awaitingPaymentSql } from '@server/modules/invoices/prepay-payment'
 import { retryingTransaction } from '@server/modules/orders/transactions'
 import { lockOrder, nextStatus } from '@server/modules/packing/packing.service'
 import type { PackingUser } from '@server/modules/packing/packing.service'
 import { getSettings } from '@server/modules/settings/settings.service'
-import { sendShipmentMail } from '@server/modules/shipments/shipment-mail'
 
 export type ShipOptions = {
   /** E-mail the buyer (tracking and packing slip; the invoice) after the commit. Default true. */
@@ -135,6 +135,8 @@ export async function shipOrder(
             userId: user.id,
             notify: opts.notify,
           })
+      // After the invoice's own e-mail: the buyer hears of the invoice, then of the parcel.
+      if (opts.notify !== false) await keepMail([{ kind: 'shipment', orderId }], t)
       return {
         order: { id: orderId, number: o.number, status: 'shipped' as const },
         shipment: {
@@ -152,6 +154,5 @@ export async function shipOrder(
       }
     }),
   )
-  if (opts.notify !== false) queueMail(`shipment ${result.order.number}`, () => sendShipmentMail(orderId))
   return result
 }
