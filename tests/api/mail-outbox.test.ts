@@ -134,6 +134,34 @@ describe('the mail outbox', () => {
     expect(await outbox()).toEqual([])
   })
 
+  it('keeps a placed order’s e-mail, written by the placing statement itself, when the relay refuses it', async () => {
+    const p = await makeProduct({ batches: [{ readyInDays: -10, bars: 60 }] })
+    relay.refuse = 1
+    const r = await buyer.post(
+      '/api/orders',
+      { lines: [{ productId: p.productId, cases: 1 }] },
+      { 'Idempotency-Key': randomUUID() },
+    )
+    expect(r.status).toBe(201)
+    await drainMail()
+    const rows = await sequelize.query<{ job: unknown; label: string; attempts: number }>(
+      'SELECT job, label, attempts FROM mail_outbox',
+      { type: QueryTypes.SELECT },
+    )
+    expect(rows).toEqual([
+      {
+        job: { kind: 'order', mail: { kind: 'placed', orderId: r.body.order.id } },
+        label: `order ${r.body.order.id} placed`,
+        attempts: 1,
+      },
+    ])
+    await sequelize.query("UPDATE mail_outbox SET next_attempt_at = now() - interval '1 second'")
+    expect(await sendDueMail()).toBe(1)
+    await drainMail()
+    await waitForMail(SHOP_OF.buyerA.buyer.email, new RegExp(`Order ${r.body.order.number} placed`))
+    expect(await outbox()).toEqual([])
+  })
+
   it('sends, exactly once, an e-mail whose process ended before it went out', async () => {
     const order = await placedOrder()
     const subject = `Order ${order.number} confirmed`

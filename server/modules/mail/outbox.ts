@@ -76,6 +76,11 @@ async function runJob(job: MailJob): Promise<void> {
   }
 }
 
+/** A kept job as `keepMail` answers it, for a row another statement wrote (placing an order). */
+export function keptMail(id: number, job: MailJob): KeptMail {
+  return { id, job, label: labelOf(job) }
+}
+
 /**
  * Writes the jobs in `t`; unless `sendAtCommit` is false (the caller sends them itself with
  * `sendKept`), they go out as soon as `t` commits. Nothing is written for no jobs.
@@ -120,6 +125,32 @@ export function sendKept(
   }
 }
 
+// Sent jobs' rows are deleted a few at a time: in a burst of orders one DELETE per e-mail was a
+// statement per order more for the database (a row whose delete is lost is sent again, once).
+let sentIds: number[] = []
+let deleting: Promise<void> | null = null
+
+function forget(id: number) {
+  sentIds.push(id)
+  deleting ??= trackMail(deleteSent())
+}
+
+async function deleteSent(): Promise<void> {
+  try {
+    await new Promise((r) => setTimeout(r, 10))
+    while (sentIds.length > 0) {
+      const ids = sentIds
+      sentIds = []
+      await sequelize.query('DELETE FROM mail_outbox WHERE id = ANY($1::bigint[])', { bind: [ids] })
+    }
+  } catch (err) {
+    sentIds = []
+    logger.warn('sent mail left in the outbox', { error: (err as Error).message })
+  } finally {
+    deleting = null
+  }
+}
+
 /** One try at a kept job: deleted when every message went, else kept for a later try. */
 async function attempt(k: KeptMail, run: () => Promise<unknown>): Promise<void> {
   if (running.has(k.id)) return
@@ -132,7 +163,7 @@ async function attempt(k: KeptMail, run: () => Promise<unknown>): Promise<void> 
       failures = { count: 1, lastError: err instanceof Error ? err.message : String(err) }
     }
     if (failures.count === 0) {
-      await sequelize.query('DELETE FROM mail_outbox WHERE id = $1', { bind: [k.id] })
+      forget(k.id)
       return
     }
     const [row] = await sequelize.query<{ attempts: number; gave_up: boolean }>(

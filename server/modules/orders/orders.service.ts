@@ -17,9 +17,8 @@ import { sellableProducts } from '@server/modules/catalogue/catalogue.service'
 import type { SellableProduct } from '@server/modules/catalogue/catalogue.service'
 import type { OrderPricing } from '@shared/domain/orders/order-pricing'
 import { sendOrderMail } from '@server/modules/orders/order-mail'
-import type { OrderMail } from '@server/modules/orders/order-mail'
-import { keepMail, sendKept } from '@server/modules/mail/outbox'
-import type { KeptMail } from '@server/modules/mail/outbox'
+import { keptMail, LEASE_SECONDS, sendKept } from '@server/modules/mail/outbox'
+import type { KeptMail, MailJob } from '@server/modules/mail/outbox'
 import {
   hasOverdueInvoices,
   price,
@@ -259,7 +258,8 @@ async function insertPlacedOrder(
   lines: readonly NewLine[],
   allocations: readonly Allocation[],
   t: Transaction,
-): Promise<number> {
+  notify: boolean,
+): Promise<{ orderId: number; mails: KeptMail[] }> {
   const col = <K extends keyof NewLine>(k: K) => lines.map((l) => l[k])
   const bind = [
     o.year,
@@ -296,10 +296,14 @@ async function insertPlacedOrder(
     allocations.map((a) => lines[Number(a.lineKey)]!.sortOrder),
     allocations.map((a) => a.batchId),
     allocations.map((a) => a.bars),
+    // $33–$34: the placed e-mail's outbox row (as keepMail writes it), none when not notifying
+    notify ? JSON.stringify(PLACED_TEMPLATE) : null,
+    LEASE_SECONDS,
   ]
-  let rows: { id: number; number: string; seq: number }[]
+  type Row = { id: number; number: string; seq: number; mail_id: string | null }
+  let rows: Row[]
   try {
-    rows = await sequelize.query<{ id: number; number: string; seq: number }>(
+    rows = await sequelize.query<Row>(
       `WITH s AS (
          INSERT INTO order_sequences (year, last) VALUES ($1, 1)
          ON CONFLICT (year) DO UPDATE SET last = order_sequences.last + 1 RETURNING last
@@ -336,8 +340,14 @@ async function insertPlacedOrder(
        ), m AS (
          INSERT INTO stock_moves (batch_id, kind, bars, free_delta, reserved_delta, order_id, order_line_id, user_id)
          SELECT al.batch_id, 'reserved', al.bars, -al.bars, al.bars, o.id, al.order_line_id, $3 FROM al, o
+       ), mo AS (
+         INSERT INTO mail_outbox (job, label, next_attempt_at)
+         SELECT jsonb_set($33::jsonb, '{mail,orderId}', to_jsonb(o.id)), 'order ' || o.id || ' placed',
+                now() + make_interval(secs => $34)
+           FROM o WHERE $33::jsonb IS NOT NULL
+         RETURNING id
        )
-       SELECT id, number, seq FROM o`,
+       SELECT id, number, seq, (SELECT id FROM mo) AS mail_id FROM o`,
       { bind, type: QueryTypes.SELECT, transaction: t },
     )
   } catch (err) {
@@ -354,8 +364,12 @@ async function insertPlacedOrder(
   if (row.number !== formatOrderNumber(o.year, row.seq)) {
     throw new Error(`order number ${row.number} does not read as sequence ${row.seq} of ${o.year}`)
   }
-  return row.id
+  const job: MailJob = { kind: 'order', mail: { kind: 'placed', orderId: row.id } }
+  return { orderId: row.id, mails: row.mail_id ? [keptMail(Number(row.mail_id), job)] : [] }
 }
+
+// The placed e-mail's job with its order id still to fill (insertPlacedOrder sets it in SQL).
+const PLACED_TEMPLATE: MailJob = { kind: 'order', mail: { kind: 'placed', orderId: 0 } }
 
 /** Pricing lines for priceOrder from the products a shop may order. */
 export function pricingLines(
@@ -465,7 +479,7 @@ export async function placeOrder(args: {
       const year = yearOf(today)
       formatOrderNumber(year, 1) // refuses a year outside the numbering before anything is written
       const lines = input.lines.map((l, i) => newLine(l, i, products, pricing, promises))
-      const orderId = await insertPlacedOrder(
+      const { orderId, mails } = await insertPlacedOrder(
         {
           year,
           shopId,
@@ -485,6 +499,7 @@ export async function placeOrder(args: {
         lines,
         allocations,
         t,
+        args.notify !== false,
       )
       // Confirmed at once: a prepay account's invoice is raised with it (other terms invoice at shipping).
       if (autoConfirm && shop.paymentTerms === 'prepay') {
@@ -492,11 +507,6 @@ export async function placeOrder(args: {
       }
       // One e-mail to the buyer either way: an order confirmed as it is placed says so in its
       // placed e-mail (templates/email/orders.ts), rather than a second message the same second.
-      const placed: OrderMail = { kind: 'placed', orderId }
-      const mails =
-        args.notify === false
-          ? []
-          : await keepMail([{ kind: 'order', mail: placed }], t, { sendAtCommit: false })
       return { orderId, mails }
     })
   } catch (err) {
