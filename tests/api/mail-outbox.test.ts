@@ -65,13 +65,13 @@ const mailsAbout = async (subject: string) =>
     (m) => m.subject === subject && m.to.some((t) => t.address === SHOP_OF.buyerA.buyer.email),
   ).length
 
+/** Posts a buyer's order of `cases` cases of one product, whatever the answer. */
+const postOrder = (productId: number, cases: number) =>
+  buyer.post('/api/orders', { lines: [{ productId, cases }] }, { 'Idempotency-Key': randomUUID() })
+
 async function placedOrder(): Promise<{ id: number; number: string }> {
   const p = await makeProduct({ batches: [{ readyInDays: -10, bars: 60 }] })
-  const r = await buyer.post(
-    '/api/orders',
-    { lines: [{ productId: p.productId, cases: 1 }] },
-    { 'Idempotency-Key': randomUUID() },
-  )
+  const r = await postOrder(p.productId, 1)
   expect(r.status).toBe(201)
   await drainMail()
   return r.body.order
@@ -97,11 +97,7 @@ describe('the mail outbox', () => {
     expect(await outbox()).toEqual([])
     // Refused (more cases than there are): the transaction rolled back, its e-mail with it.
     const p = await makeProduct({ batches: [{ readyInDays: -10, bars: 6 }] })
-    const r = await buyer.post(
-      '/api/orders',
-      { lines: [{ productId: p.productId, cases: 5 }] },
-      { 'Idempotency-Key': randomUUID() },
-    )
+    const r = await postOrder(p.productId, 5)
     expect(r.status).toBe(409)
     await drainMail()
     expect(await outbox()).toEqual([])
@@ -137,11 +133,7 @@ describe('the mail outbox', () => {
   it('keeps a placed order’s e-mail, written by the placing statement itself, when the relay refuses it', async () => {
     const p = await makeProduct({ batches: [{ readyInDays: -10, bars: 60 }] })
     relay.refuse = 1
-    const r = await buyer.post(
-      '/api/orders',
-      { lines: [{ productId: p.productId, cases: 1 }] },
-      { 'Idempotency-Key': randomUUID() },
-    )
+    const r = await postOrder(p.productId, 1)
     expect(r.status).toBe(201)
     await drainMail()
     const rows = await sequelize.query<{ job: unknown; label: string; attempts: number }>(

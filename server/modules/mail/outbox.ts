@@ -81,15 +81,8 @@ export function keptMail(id: number, job: MailJob): KeptMail {
   return { id, job, label: labelOf(job) }
 }
 
-/**
- * Writes the jobs in `t`; unless `sendAtCommit` is false (the caller sends them itself with
- * `sendKept`), they go out as soon as `t` commits. Nothing is written for no jobs.
- */
-export async function keepMail(
-  jobs: MailJob[],
-  t: Transaction,
-  opts: { sendAtCommit?: boolean } = {},
-): Promise<KeptMail[]> {
+/** Writes the jobs in `t`; they go out as soon as `t` commits. Nothing is written for no jobs. */
+export async function keepMail(jobs: MailJob[], t: Transaction): Promise<KeptMail[]> {
   if (jobs.length === 0) return []
   const labels = jobs.map(labelOf)
   const rows = await sequelize.query<{ id: string }>(
@@ -103,7 +96,7 @@ export async function keepMail(
     },
   )
   const kept = rows.map((r, i) => ({ id: Number(r.id), job: jobs[i]!, label: labels[i]! }))
-  if (opts.sendAtCommit !== false) t.afterCommit(() => sendKept(kept))
+  t.afterCommit(() => sendKept(kept))
   return kept
 }
 
