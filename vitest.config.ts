@@ -64,6 +64,8 @@ export default defineConfig({
           globalSetup: ['tests/setup/services.ts', 'tests/setup/e2e-server.ts'],
           setupFiles: ['tests/setup/fail-on-console-error.ts'],
           fileParallelism: false,
+          // A page waits on the server and the mail catcher: the 1 s default is too short on a busy CI machine.
+          expect: { poll: { timeout: 10_000 } },
           testTimeout: 60_000,
           hookTimeout: 120_000,
         },

@@ -20,7 +20,7 @@ import { allMail, waitForMail } from '@tests/factories/mail'
 import { makeOrder, makeSellable } from '@tests/factories/fulfilment'
 import { makeProduct, resetShop, setMinimums, SHOP_OF } from '@tests/factories/orders'
 
-const relay = vi.hoisted(() => ({ refuse: 0 }))
+const relay = vi.hoisted(() => ({ refuse: 0, hold: null as Promise<void> | null }))
 
 vi.mock('nodemailer', async (importOriginal) => {
   const real = (await importOriginal<{ default: typeof Nodemailer }>()).default
@@ -32,7 +32,7 @@ vi.mock('nodemailer', async (importOriginal) => {
         relay.refuse -= 1
         return Promise.reject(new Error('421 4.3.2 relay busy, try again later'))
       }
-      return send(mail)
+      return relay.hold ? relay.hold.then(() => send(mail)) : send(mail)
     }) as typeof transport.sendMail
     return transport
   }
@@ -232,5 +232,28 @@ describe('the mail outbox', () => {
     await waitForMail(o.buyerEmail, new RegExp(`Order ${o.number} has shipped: UPS LC-OUTBOX-1`))
     await waitForMail(o.buyerEmail, new RegExp(`Invoice ${shipped.body.invoice.number} from`))
     expect(await outbox()).toEqual([])
+  })
+})
+
+describe('a password-reset e-mail', () => {
+  it('is not waited for: the answer comes while the relay still holds the message, which then arrives', async () => {
+    let release = () => {}
+    relay.hold = new Promise<void>((resolve) => (release = resolve))
+    try {
+      const email = SHOP_OF.buyerA.buyer.email
+      const resets = async () =>
+        (await allMail()).filter(
+          (m) => /^Reset your/.test(m.subject) && m.to.some((t) => t.address === email),
+        ).length
+      const before = await resets()
+      const r = await buyer.post('/api/auth/password-reset', { email })
+      expect(r.status).toBe(204)
+      expect(await resets()).toBe(before)
+      release()
+      await expect.poll(resets, { timeout: 10_000 }).toBe(before + 1)
+    } finally {
+      relay.hold = null
+      release()
+    }
   })
 })

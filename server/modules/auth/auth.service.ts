@@ -109,7 +109,9 @@ export async function requestPasswordReset(email: string) {
     link: `${env.APP_URL}/set-password?token=${token}`,
     studioName: settings.studio.name,
   })
-  await sendMail({ to: user.email, ...mail })
+  // Not awaited: how long the answer takes must not tell whether the address has an account, and a
+  // slow relay must not hold the page. sendMail never throws; a refusal is logged and the buyer asks again.
+  void sendMail({ to: user.email, ...mail })
 }
 
 /** Uses a reset or invitation token once: sets the password and ends every other session of the user. */
