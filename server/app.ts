@@ -9,6 +9,7 @@ import helmet from 'helmet'
 import { env } from '@server/config/env'
 import { pool } from '@server/db/sequelize'
 import { csrfProtection } from '@server/middlewares/csrf'
+import { knownSession } from '@server/middlewares/known-session'
 import { errorHandler, notFound } from '@server/middlewares/error-handler'
 import { applicationsRoutes } from '@server/modules/applications/applications.routes'
 import type { ApplicationLimits } from '@server/modules/applications/applications.routes'
@@ -104,30 +105,43 @@ export function createApp(opts: AppOptions = {}) {
   // A pasted purchases CSV may be up to 1 MB (more once JSON-escaped); every other body stays small.
   api.use('/purchases/import', express.json({ limit: '2mb' }))
   api.use(express.json({ limit: '256kb' }))
+  // The buyers' catalogue skips the session machinery for a cookie this process has already
+  // checked (middlewares/known-session.ts): most of its time went there, not to the answer.
+  const known = knownSession(['/catalogue'])
+  api.use(known.shortcut)
   api.use(
-    session({
-      name: 'lc.sid',
-      secret: env.SESSION_SECRET,
-      // Written through to PostgreSQL, read from memory while known (auth/session-cache.ts).
-      store: rememberingStore(
-        new PgStore({
-          pool,
-          tableName: 'sessions',
-          createTableIfMissing: false,
-          pruneSessionInterval: opts.pruneSessions === false ? false : 15 * 60,
-          // With rolling: false the browser's cookie expires a fixed time after sign-in, so moving
-          // the stored expiry on every request (an UPDATE per GET) bought nothing.
-          disableTouch: true,
-        }),
-      ),
-      resave: false,
-      saveUninitialized: false,
-      rolling: false,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 7 * 24 * 60 * 60 * 1000, path: '/' },
-    }),
+    known.unlessKnown(
+      session({
+        name: 'lc.sid',
+        secret: env.SESSION_SECRET,
+        // Written through to PostgreSQL, read from memory while known (auth/session-cache.ts).
+        store: rememberingStore(
+          new PgStore({
+            pool,
+            tableName: 'sessions',
+            createTableIfMissing: false,
+            pruneSessionInterval: opts.pruneSessions === false ? false : 15 * 60,
+            // With rolling: false the browser's cookie expires a fixed time after sign-in, so moving
+            // the stored expiry on every request (an UPDATE per GET) bought nothing.
+            disableTouch: true,
+          }),
+        ),
+        resave: false,
+        saveUninitialized: false,
+        rolling: false,
+        cookie: {
+          httpOnly: true,
+          sameSite: 'lax',
+          secure: 'auto',
+          maxAge: 7 * 24 * 60 * 60 * 1000,
+          path: '/',
+        },
+      }),
+    ),
   )
-  api.use(passport.initialize())
-  api.use(passport.session())
+  api.use(known.unlessKnown(passport.initialize()))
+  api.use(known.unlessKnown(passport.session()))
+  api.use(known.remember)
   api.use(csrfProtection(['/webhooks/']))
 
   // The buyers' catalogue first: it is the busiest route, and every router mounted without a

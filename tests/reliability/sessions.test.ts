@@ -104,6 +104,62 @@ describe('session ids', () => {
   })
 })
 
+describe('the catalogue’s shortcut through the session (a cookie checked before)', () => {
+  /** Signs a buyer in and reads the catalogue twice with the cookie: the second read takes the shortcut. */
+  async function remembered(who: 'buyerA' | 'buyerB' | 'buyerC') {
+    const c = new ApiClient(app)
+    await c.token()
+    const value = sid(await c.post('/api/auth/login', DEMO[who]))!
+    const first = await withCookie(value).get('/api/catalogue')
+    const second = await withCookie(value).get('/api/catalogue')
+    expect([first.status, second.status]).toEqual([200, 200])
+    return { c, value, first, second }
+  }
+
+  it('answers a checked cookie exactly as the whole way does, with no new cookie', async () => {
+    const { first, second } = await remembered('buyerA')
+    expect(second.body).toEqual(first.body)
+    expect(second.headers.etag).toBe(first.headers.etag)
+    expect(second.headers['set-cookie']).toBeUndefined()
+    expect(second.headers['cache-control']).toBe('no-store')
+  })
+
+  it('a remembered cookie is dead on the catalogue once its person signs out', async () => {
+    const { c, value } = await remembered('buyerB')
+    expect((await c.post('/api/auth/logout')).status).toBe(204)
+    expect((await withCookie(value).get('/api/catalogue')).status).toBe(401)
+  })
+
+  it('the remembered session’s id with another signature is nobody', async () => {
+    const { value } = await remembered('buyerA')
+    const [id, signature] = decodeURIComponent(value).replace(/^s:/, '').split('.')
+    const forged = encodeURIComponent(`s:${id}.${signature!.slice(1)}x`)
+    expect((await withCookie(forged).get('/api/catalogue')).status).toBe(401)
+    expect((await withCookie(encodeURIComponent(`s:${id}`)).get('/api/catalogue')).status).toBe(401)
+    expect((await withCookie(value).get('/api/catalogue')).status).toBe(200)
+  })
+
+  it('a remembered cookie stops working when its person is switched off, or sets a new password elsewhere', async () => {
+    const id = await userId(DEMO.buyerC.email)
+    const off = await remembered('buyerC')
+    expect((await owner.patch(`/api/users/${id}`, { active: false })).status).toBe(200)
+    try {
+      expect((await withCookie(off.value).get('/api/catalogue')).status).toBe(401)
+    } finally {
+      expect((await owner.patch(`/api/users/${id}`, { active: true })).status).toBe(200)
+    }
+    expect((await withCookie(off.value).get('/api/catalogue')).status).toBe(401)
+
+    const kept = await remembered('buyerC')
+    const elsewhere = await clientAs(app, 'buyerC')
+    const token = await issueToken(id, 'reset')
+    const set = await elsewhere.post('/api/auth/set-password', { token, password: DEMO.buyerC.password })
+    expect(set.status).toBe(204)
+    expect((await withCookie(kept.value).get('/api/catalogue')).status).toBe(401)
+    await new ApiClient(app).login(DEMO.buyerC.email, DEMO.buyerC.password)
+  })
+})
+
 describe('CSRF on every write route', () => {
   it('refuses each write of the route table without the token, with a wrong one, or with another session’s (403 csrf), writing nothing', async () => {
     const other = new ApiClient(app)

@@ -21,13 +21,17 @@ class Remembered<K, T> {
   generation = 0
 
   get(key: K): T | undefined {
+    return this.entry(key)?.value
+  }
+
+  entry(key: K): Entry<T> | undefined {
     const e = this.entries.get(key)
     if (!e) return undefined
     if (e.until <= Date.now()) {
       this.entries.delete(key)
       return undefined
     }
-    return e.value
+    return e
   }
 
   /** Keeps `value` unless a forget happened since `generation` was read. */
@@ -122,8 +126,35 @@ export function forgetUser(userId: number, transaction?: { afterCommit(fn: () =>
   transaction?.afterCommit(drop)
 }
 
+// Cookie headers whose session cookie express-session has checked (signature and all) and found
+// signed in, each with the session id it named. A header seen again names the same session, so
+// while that session and its user are still remembered above, nothing needs checking again. An
+// entry never outlives what it points to: the session's forgetting (sign-out, a new password,
+// deactivation) or its user's ends the shortcut, and the next request takes the whole way again.
+const checkedCookies = new Map<string, string>()
+const MAX_COOKIE_HEADER = 4096
+
+/** Notes that `cookieHeader` was found to be the signed-in session `sid`. */
+export function rememberCheckedCookie(cookieHeader: string | undefined, sid: string) {
+  if (!cookieHeader || cookieHeader.length > MAX_COOKIE_HEADER || checkedCookies.get(cookieHeader) === sid)
+    return
+  if (checkedCookies.size >= MAX_ENTRIES) checkedCookies.delete(checkedCookies.keys().next().value as string)
+  checkedCookies.set(cookieHeader, sid)
+}
+
+/** The signed-in user of a cookie header checked before, while its session and user are remembered. */
+export function userOfCheckedCookie<T>(cookieHeader: string | undefined): T | undefined {
+  if (!cookieHeader) return undefined
+  const sid = checkedCookies.get(cookieHeader)
+  if (sid === undefined) return undefined
+  const session = sessions.entry(sid)
+  if (session?.userId == null) return undefined
+  return users.get(session.userId) as T | undefined
+}
+
 /** Forgets everything (tests that change rows behind the app's back). */
 export function forgetAllSessions() {
   sessions.clear()
   users.clear()
+  checkedCookies.clear()
 }
