@@ -24,6 +24,7 @@ import { cardPaymentsRoutes, cardWebhookRoutes } from '@server/modules/card-paym
 import { catalogueRoutes } from '@server/modules/catalogue/catalogue.routes'
 import { healthRoutes } from '@server/modules/health/health.routes'
 import { homeRoutes } from '@server/modules/home/home.routes'
+import { unsentMailRoutes } from '@server/modules/mail/unsent-mail.routes'
 import { ingredientsRoutes } from '@server/modules/ingredients/ingredients.routes'
 import { invoicesRoutes } from '@server/modules/invoices/invoices.routes'
 import { ordersCsvRoutes, ordersRoutes } from '@server/modules/orders/orders.routes'
@@ -169,6 +170,7 @@ export function createApp(opts: AppOptions = {}) {
   api.use(paymentsRoutes()) // /invoices/:id/{payments,remind}, /payments(.csv), /receivables
   api.use(cardPaymentsRoutes()) // /invoices/:id/card-checkout(s), /payments/:id/refunds, /card-payments/*
   api.use('/home', homeRoutes())
+  api.use('/unsent-mail', unsentMailRoutes())
   api.use('/planning', planningRoutes())
   api.use(salesRoutes()) // /sales(.csv)
   api.use('/cart', cartRoutes())

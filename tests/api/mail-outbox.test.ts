@@ -257,3 +257,103 @@ describe('a password-reset e-mail', () => {
     }
   })
 })
+
+describe('unsent e-mails, as the owner sees them', () => {
+  /** An order whose confirmation the relay refused once; answers it with the outbox row's id. */
+  async function refusedConfirmation() {
+    const order = await placedOrder()
+    relay.refuse = 1
+    expect((await owner.post(`/api/orders/${order.id}/confirm`)).status).toBe(200)
+    await drainMail()
+    const [row] = await outbox()
+    return { order, id: Number(row!.id) }
+  }
+
+  it('lists what the relay refused, in the owner’s words; nothing still on its first try', async () => {
+    const { order, id } = await refusedConfirmation()
+    await sequelize.query(
+      `INSERT INTO mail_outbox (job, label, next_attempt_at) VALUES ($1::jsonb, 'in flight', now() + interval '2 minutes')`,
+      { bind: [JSON.stringify({ kind: 'shipment', orderId: order.id })] },
+    )
+    const r = await owner.get('/api/unsent-mail')
+    expect(r.status).toBe(200)
+    expect(r.body.items).toEqual([
+      {
+        id,
+        kind: 'order',
+        about: `Order ${order.number} confirmed`,
+        orderId: order.id,
+        invoiceId: null,
+        shopName: SHOP_OF.buyerA.tradingName,
+        attempts: 1,
+        lastError: expect.stringContaining('relay busy'),
+        gaveUp: false,
+        nextAttemptAt: expect.any(String),
+        createdAt: expect.any(String),
+      },
+    ])
+    expect(Date.parse(r.body.items[0].nextAttemptAt) - Date.now()).toBeGreaterThan(30_000)
+    for (const who of [buyer, await clientAs(app, 'packer')])
+      expect((await who.get('/api/unsent-mail')).status).toBe(403)
+  })
+
+  it('sends one again now: still refused, it counts the try and says why; taken, it leaves the outbox', async () => {
+    const { order, id } = await refusedConfirmation()
+    relay.refuse = 1
+    const again = await owner.post(`/api/unsent-mail/${id}/send`)
+    expect(again.status).toBe(200)
+    expect(again.body).toMatchObject({ sent: false, item: { id, attempts: 2, gaveUp: false } })
+    expect(again.body.item.lastError).toContain('relay busy')
+    const sent = await owner.post(`/api/unsent-mail/${id}/send`)
+    expect(sent.status).toBe(200)
+    expect(sent.body).toEqual({ sent: true })
+    await waitForMail(SHOP_OF.buyerA.buyer.email, new RegExp(`Order ${order.number} confirmed`))
+    expect(await outbox()).toEqual([])
+    expect((await owner.get('/api/unsent-mail')).body.items).toEqual([])
+    expect((await owner.post(`/api/unsent-mail/${id}/send`)).status).toBe(404)
+    const trail = await sequelize.query<{ action: string }>(
+      `SELECT action FROM audit_events WHERE entity = 'mail_outbox' AND entity_id = $1 ORDER BY id`,
+      { bind: [id], type: QueryTypes.SELECT },
+    )
+    expect(trail.map((t) => t.action)).toEqual(['mail.refused_again', 'mail.sent_again'])
+  })
+
+  it('sends a given-up e-mail when asked, and a refused one stays given up', async () => {
+    const { order, id } = await refusedConfirmation()
+    await sequelize.query('UPDATE mail_outbox SET attempts = $2, gave_up_at = now() WHERE id = $1', {
+      bind: [id, MAX_ATTEMPTS],
+    })
+    const listed = (await owner.get('/api/unsent-mail')).body.items
+    expect(listed).toMatchObject([{ id, gaveUp: true, nextAttemptAt: null, attempts: MAX_ATTEMPTS }])
+    relay.refuse = 1
+    const errors = vi.spyOn(console, 'error').mockImplementation(() => {})
+    try {
+      const refused = await owner.post(`/api/unsent-mail/${id}/send`)
+      expect(refused.body).toMatchObject({ sent: false, item: { gaveUp: true, attempts: MAX_ATTEMPTS + 1 } })
+    } finally {
+      errors.mockRestore()
+    }
+    expect((await owner.post(`/api/unsent-mail/${id}/send`)).body).toEqual({ sent: true })
+    await waitForMail(SHOP_OF.buyerA.buyer.email, new RegExp(`Order ${order.number} confirmed`))
+  })
+
+  it('dismisses one the owner saw to, and refuses bad or unknown ids with the field at fault', async () => {
+    const { order, id } = await refusedConfirmation()
+    const subject = `Order ${order.number} confirmed`
+    expect((await owner.post(`/api/unsent-mail/${id}/dismiss`)).status).toBe(204)
+    expect(await outbox()).toEqual([])
+    expect((await owner.post(`/api/unsent-mail/${id}/dismiss`)).status).toBe(404)
+    expect(await mailsAbout(subject)).toBe(0)
+    const [trail] = await sequelize.query<{ action: string; data: { about: string } }>(
+      `SELECT action, data FROM audit_events WHERE entity = 'mail_outbox' AND entity_id = $1`,
+      { bind: [id], type: QueryTypes.SELECT },
+    )
+    expect(trail).toEqual({ action: 'mail.dismissed', data: { about: subject } })
+    for (const bad of ['abc', '0x10', '0', '99999999999']) {
+      const r = await owner.post(`/api/unsent-mail/${bad}/send`)
+      expect(r.status, bad).toBe(400)
+      expect(r.body.error.details).toEqual([{ field: 'params.id', message: 'Not an e-mail of the outbox.' }])
+    }
+    expect((await owner.post('/api/unsent-mail/2147483000/dismiss')).status).toBe(404)
+  })
+})

@@ -182,6 +182,9 @@ export const ACCESS_MATRIX: Record<string, MatrixEntry> = {
   }),
 
   'GET /api/home/today': OWNER,
+  'GET /api/unsent-mail': OWNER,
+  'POST /api/unsent-mail/:id/send': r('401 403 403 403 ok', { fuzz: { skip: 'takes no body' } }),
+  'POST /api/unsent-mail/:id/dismiss': r('401 403 403 403 ok', { fuzz: { skip: 'takes no body' } }),
   'GET /api/planning/plan': OWNER,
   'POST /api/planning/pours': OWNER,
   'GET /api/planning/pours/:id': OWNER,

@@ -101,7 +101,19 @@ export async function shopARecords(owner: ApiClient): Promise<Records> {
     moulds: 1,
   })
   if (pour.status !== 201) throw new Error(`planned pour: ${pour.status} ${JSON.stringify(pour.body)}`)
+  // Two e-mails about that invoice that the relay refused once: one to send again, one to dismiss.
+  const unsentMail = (label: string) =>
+    first(
+      `INSERT INTO mail_outbox (job, label, attempts, last_error, next_attempt_at)
+       VALUES (jsonb_build_object('kind', 'invoice', 'invoiceId', $1::int, 'reason', 'issued'), $2, 1,
+               '421 relay busy', now() + interval '1 hour') RETURNING id`,
+      [invoiceId, label],
+    )
+  const unsentToSend = await unsentMail('matrix: to send')
+  const unsentToDismiss = await unsentMail('matrix: to dismiss')
   return {
+    unsentToSend,
+    unsentToDismiss,
     shopId: a.shopId,
     userId: a.buyerId,
     orderId: confirmed.orderId,
@@ -138,6 +150,7 @@ export function fillPath(path: string, rec: Records): string {
     if (p.startsWith('/api/payments/')) return rec.paymentId
     if (p.startsWith('/api/planning/pours/')) return rec.pourId
     if (p.startsWith('/api/card-payments/problems/')) return rec.problemId
+    if (p.startsWith('/api/unsent-mail/')) return p.endsWith('/send') ? rec.unsentToSend : rec.unsentToDismiss
     throw new Error(`no record for :id in ${p}`)
   }
   return path

@@ -15,6 +15,8 @@ import { createTestDatabase } from './test-db'
 declare module 'vitest' {
   export interface ProvidedContext {
     baseUrl: string
+    /** The server's database, for a test that must set up what no screen can (a relay's refusals). */
+    databaseUrl: string
   }
 }
 
@@ -76,6 +78,7 @@ export default async function setup(project: TestProject) {
     await new Promise((r) => setTimeout(r, 200))
   }
   project.provide('baseUrl', baseUrl)
+  project.provide('databaseUrl', db.url)
   return async () => {
     child.kill('SIGTERM')
     await new Promise((r) => (child.exitCode !== null ? r(null) : child.once('exit', r)))

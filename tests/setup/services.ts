@@ -14,7 +14,7 @@ import type { TestProject } from 'vitest/node'
 import { migrate, seeder } from '../../server/db/migrator'
 import { startCardServiceFake } from '../../scripts/lib/card-service-fake'
 import { startMailCatcher } from '../../scripts/lib/mail-catcher'
-import { freePort } from '../../scripts/lib/ports'
+import { freePorts } from '../../scripts/lib/ports'
 import { destroyCluster, ensureDatabase, startCluster } from '../../scripts/lib/postgres'
 
 export type TestServices = {
@@ -41,17 +41,19 @@ export default async function setup(project: TestProject) {
   const base = fs.mkdtempSync(path.join(os.tmpdir(), 'lathercase-test-'))
   fs.chmodSync(base, 0o755)
   const superPassword = randomBytes(12).toString('hex')
+  // Chosen together, so the database and the mail catcher's two ports cannot be handed the same one.
+  const [pgPort, smtpPort, webPort] = await freePorts(3)
   const cluster = startCluster({
     dataDir: path.join(base, 'pg'),
-    port: await freePort(),
+    port: pgPort!,
     superPassword,
     fast: true,
     log: () => {},
   })
   let stopped = false
   const mail = await startMailCatcher({
-    smtpPort: await freePort(),
-    webPort: await freePort(),
+    smtpPort: smtpPort!,
+    webPort: webPort!,
     dir: path.join(base, 'mail'),
   })
   const cardWebhookSecret = `whsec_${randomBytes(24).toString('hex')}`

@@ -144,9 +144,12 @@ async function deleteSent(): Promise<void> {
   }
 }
 
-/** One try at a kept job: deleted when every message went, else kept for a later try. */
-async function attempt(k: KeptMail, run: () => Promise<unknown>): Promise<void> {
-  if (running.has(k.id)) return
+/**
+ * One try at a kept job: deleted when every message went, else kept for a later try. Answers
+ * whether it was sent (false also when the job is being tried already).
+ */
+async function attempt(k: KeptMail, run: () => Promise<unknown>): Promise<boolean> {
+  if (running.has(k.id)) return false
   running.add(k.id)
   try {
     let failures: { count: number; lastError?: string }
@@ -157,7 +160,7 @@ async function attempt(k: KeptMail, run: () => Promise<unknown>): Promise<void> 
     }
     if (failures.count === 0) {
       forget(k.id)
-      return
+      return true
     }
     const [row] = await sequelize.query<{ attempts: number; gave_up: boolean }>(
       `UPDATE mail_outbox
@@ -183,6 +186,15 @@ async function attempt(k: KeptMail, run: () => Promise<unknown>): Promise<void> 
   } finally {
     running.delete(k.id)
   }
+  return false
+}
+
+/** Whether this process is trying the job right now. */
+export const isSending = (id: number) => running.has(id)
+
+/** Tries a kept job at once, whatever its wait (the owner asked): answers whether it was sent. */
+export function sendKeptNow(k: KeptMail): Promise<boolean> {
+  return attempt(k, () => runJob(k.job))
 }
 
 /**

@@ -13,6 +13,7 @@ import { paths } from '@/config/paths'
 import { useMe } from '@/features/auth/api/me'
 import { useToday } from '@/features/home/api/today'
 import { TodayPanel } from '@/features/home/components/today-panel'
+import { UnsentMailList } from '@/features/mail/components/unsent-mail-list'
 import { useShopAccounts } from '@/features/shops/api/accounts'
 import { useSettings, useStudioProfile } from '@/features/studio/api/studio'
 import { useUsers } from '@/features/team/api/users'
@@ -80,6 +81,7 @@ export function Component() {
         description={studio.data ? `${studio.data.name} · what needs you today` : 'What needs you today'}
         actions={<LinkButton to={paths.owner.team}>Invite someone</LinkButton>}
       />
+      <UnsentMailList orderHref={paths.owner.order} invoiceHref={paths.owner.invoice} />
       {today.data ? (
         <TodayPanel
           data={today.data}
