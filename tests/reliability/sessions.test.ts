@@ -11,6 +11,7 @@ import { beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '@server/app'
 import { sequelize } from '@server/db/sequelize'
 import { issueToken } from '@server/modules/auth/auth.service'
+import { checkedCookieCount } from '@server/modules/auth/session-cache'
 import { ApiClient, clientAs, DEMO } from '@tests/factories/api-client'
 import { dbSnapshot } from './db-state'
 import { fillPath, shopARecords } from './records'
@@ -122,6 +123,16 @@ describe('the catalogue’s shortcut through the session (a cookie checked befor
     expect(second.headers.etag).toBe(first.headers.etag)
     expect(second.headers['set-cookie']).toBeUndefined()
     expect(second.headers['cache-control']).toBe('no-store')
+  })
+
+  it('keeps one header per session: varying the other cookies replaces it rather than filling memory', async () => {
+    const { value } = await remembered('buyerA')
+    const before = checkedCookieCount()
+    for (let i = 0; i < 20; i++) {
+      const r = await request(app).get('/api/catalogue').set('Cookie', `lc.sid=${value}; filler=${i}`)
+      expect(r.status).toBe(200)
+    }
+    expect(checkedCookieCount()).toBe(before)
   })
 
   it('a remembered cookie is dead on the catalogue once its person signs out', async () => {

@@ -131,15 +131,25 @@ export function forgetUser(userId: number, transaction?: { afterCommit(fn: () =>
 // while that session and its user are still remembered above, nothing needs checking again. An
 // entry never outlives what it points to: the session's forgetting (sign-out, a new password,
 // deactivation) or its user's ends the shortcut, and the next request takes the whole way again.
+// One header per session (its latest): a signed-in person who varies the other cookies of the
+// header replaces their entry rather than filling memory.
 const checkedCookies = new Map<string, string>()
-const MAX_COOKIE_HEADER = 4096
+const headerOfSession = new Map<string, string>()
+const MAX_COOKIE_HEADER = 2048
 
 /** Notes that `cookieHeader` was found to be the signed-in session `sid`. */
 export function rememberCheckedCookie(cookieHeader: string | undefined, sid: string) {
   if (!cookieHeader || cookieHeader.length > MAX_COOKIE_HEADER || checkedCookies.get(cookieHeader) === sid)
     return
-  if (checkedCookies.size >= MAX_ENTRIES) checkedCookies.delete(checkedCookies.keys().next().value as string)
+  const previous = headerOfSession.get(sid)
+  if (previous !== undefined) checkedCookies.delete(previous)
+  if (checkedCookies.size >= MAX_ENTRIES) {
+    const [oldest, itsSid] = checkedCookies.entries().next().value as [string, string]
+    checkedCookies.delete(oldest)
+    headerOfSession.delete(itsSid)
+  }
   checkedCookies.set(cookieHeader, sid)
+  headerOfSession.set(sid, cookieHeader)
 }
 
 /** The signed-in user of a cookie header checked before, while its session and user are remembered. */
@@ -152,9 +162,13 @@ export function userOfCheckedCookie<T>(cookieHeader: string | undefined): T | un
   return users.get(session.userId) as T | undefined
 }
 
+/** How many cookie headers are noted as checked (one per remembered session at most). */
+export const checkedCookieCount = () => checkedCookies.size
+
 /** Forgets everything (tests that change rows behind the app's back). */
 export function forgetAllSessions() {
   sessions.clear()
   users.clear()
   checkedCookies.clear()
+  headerOfSession.clear()
 }
